@@ -1,0 +1,178 @@
+"""Vectorised closed-form solution of a bonded layer stack (the numeric backend).
+
+Model (transformed section; Hsueh, Thin Solid Films 418:182, 2002, in the form of layers.md eq. 3.2;
+for two layers identical to Timoshenko, J. Opt. Soc. Am. 11:233, 1925):
+
+    strain       eps(z) = c + kappa (z - t_b)                 z upward from the bottom face [m]
+    stress       sigma_i(z) = Y_i (eps(z) - f_i)              f_i = free (thermal) strain of layer i
+    EA  = sum Y_i t_i                                         axial rigidity per width [N/m]
+    t_b = sum Y_i t_i z_i / EA                                bending axis, z_i = layer centroid [m]
+    EI  = sum Y_i (t_i^3/12 + t_i (z_i - t_b)^2)              flexural rigidity per width [N m]
+    N_T = sum Y_i t_i f_i,   M_T = sum Y_i t_i f_i (z_i - t_b)
+    c   = (N + N_T) / EA,    kappa = (M + M_T) / EI
+
+Sign convention: kappa > 0 when the top face is the longer (convex) one; stress > 0 in tension;
+N > 0 is tension acting along the bending axis; M > 0 lengthens the top fibres and is taken about the
+bending axis (a force N acting at height z_N adds N (z_N - t_b) to M).
+
+Every function broadcasts: per-layer inputs have shape (..., n), loads shape (...). Y is the
+effective modulus of the bending state (E, E/(1-nu^2) or E/(1-nu)); see :mod:`bilayer.stack`.
+"""
+from __future__ import annotations
+
+from typing import NamedTuple
+
+import numpy as np
+
+__all__ = ["LaminateSolution", "solve", "effective_properties", "bilayer_extremes", "RESTRAINTS"]
+
+RESTRAINTS = ("free", "flat", "fixed")
+"""free: no support; flat: curvature held at zero, ends free to slide; fixed: no strain at all."""
+
+
+class LaminateSolution(NamedTuple):
+    """Arrays of the closed-form solution; per-layer fields have a trailing layer axis."""
+
+    axial_strain: np.ndarray  # c, strain at the bending axis [-]
+    curvature: np.ndarray  # kappa [1/m]
+    bending_axis: np.ndarray  # t_b above the bottom face [m]
+    axial_rigidity: np.ndarray  # EA [N/m]
+    flexural_rigidity: np.ndarray  # EI about the bending axis [N m]
+    thermal_force: np.ndarray  # N_T [N/m]
+    thermal_moment: np.ndarray  # M_T about the bending axis [N]
+    layer_bottom: np.ndarray  # z of each layer's bottom face [m]
+    layer_top: np.ndarray  # z of each layer's top face [m]
+    stress_bottom: np.ndarray  # sigma at each layer's bottom face [Pa]
+    stress_top: np.ndarray  # sigma at each layer's top face [Pa]
+    mechanical_strain_bottom: np.ndarray  # eps - f at each layer's bottom face [-]
+    mechanical_strain_top: np.ndarray  # eps - f at each layer's top face [-]
+
+
+def solve(
+    modulus,
+    thickness,
+    free_strain,
+    axial_force=0.0,
+    bending_moment=0.0,
+    restraint: str = "free",
+) -> LaminateSolution:
+    """Solve the stack for every design in the broadcast arrays.
+
+    ``modulus`` Y_i [Pa], ``thickness`` t_i [m] and ``free_strain`` f_i [-] have shape (..., n);
+    ``axial_force`` N [N/m] and ``bending_moment`` M [N] have shape (...). ``restraint`` is one of
+    :data:`RESTRAINTS`; with "flat" the curvature is held at zero (reaction moment -M - M_T), with
+    "fixed" the strain is zero everywhere (sigma_i = -Y_i f_i, the fully restrained limit).
+    """
+    Y, t, f = np.broadcast_arrays(
+        np.asarray(modulus, float), np.asarray(thickness, float), np.asarray(free_strain, float)
+    )
+    top = np.cumsum(t, axis=-1)
+    bottom = top - t
+    centroid = bottom + 0.5 * t
+    Yt = Y * t
+    EA = Yt.sum(axis=-1)
+    t_b = (Yt * centroid).sum(axis=-1) / EA
+    lever = centroid - t_b[..., None]
+    EI = (Y * t**3).sum(axis=-1) / 12.0 + (Yt * lever**2).sum(axis=-1)
+    Ytf = Yt * f
+    N_T = Ytf.sum(axis=-1)
+    M_T = (Ytf * lever).sum(axis=-1)
+    if restraint == "free":
+        c = (axial_force + N_T) / EA
+        kappa = (bending_moment + M_T) / EI
+    elif restraint == "flat":
+        c = (axial_force + N_T) / EA
+        kappa = np.zeros_like(c)
+    elif restraint == "fixed":
+        c = np.zeros_like(EA)
+        kappa = np.zeros_like(EA)
+    else:
+        from .errors import InputError
+
+        raise InputError("restraint", restraint, "one of " + ", ".join(RESTRAINTS))
+    c = np.broadcast_to(c, EA.shape)
+    kappa = np.broadcast_to(kappa, EA.shape)
+    strain_bottom = c[..., None] + kappa[..., None] * (bottom - t_b[..., None]) - f
+    strain_top = c[..., None] + kappa[..., None] * (top - t_b[..., None]) - f
+    return LaminateSolution(
+        axial_strain=c,
+        curvature=kappa,
+        bending_axis=t_b,
+        axial_rigidity=EA,
+        flexural_rigidity=EI,
+        thermal_force=N_T,
+        thermal_moment=M_T,
+        layer_bottom=bottom,
+        layer_top=top,
+        stress_bottom=Y * strain_bottom,
+        stress_top=Y * strain_top,
+        mechanical_strain_bottom=strain_bottom,
+        mechanical_strain_top=strain_top,
+    )
+
+
+def effective_properties(youngs_modulus, poisson_ratio, thermal_strain, state: str):
+    """Effective modulus Y and free strain f of each layer for a bending state.
+
+    narrow: Y = E, f = eps_th (uniaxial stress).
+    wide:   Y = E/(1-nu^2), f = (1+nu) eps_th (plane strain, eps_y = 0, cylindrical bending).
+    plate:  Y = E/(1-nu), f = eps_th (equal-biaxial stress, spherical bending of a free plate or disc).
+    ``thermal_strain`` is the free thermal strain integral of alpha dT from the stress-free temperature.
+    """
+    E = np.asarray(youngs_modulus, float)
+    nu = np.asarray(poisson_ratio, float)
+    eps = np.asarray(thermal_strain, float)
+    if state == "narrow":
+        return E, eps
+    if state == "wide":
+        return E / (1.0 - nu * nu), (1.0 + nu) * eps
+    if state == "plate":
+        return E / (1.0 - nu), eps
+    from .errors import InputError
+
+    raise InputError("bending state", state, "one of narrow, wide, plate")
+
+
+def bilayer_extremes(E1, E2, t1, t2, f1, f2, chunk: int = 16384):
+    """Fast two-layer closed form under free thermal load: curvature and the four face stresses.
+
+    Timoshenko (1925) in force form (layers.md eqs. 1.4-1.5): layer 1 at the bottom,
+    P = (f2 - f1)/lambda, lambda = 1/(E1 t1) + 1/(E2 t2) + h^2/(4 D), D = (E1 t1^3 + E2 t2^3)/12,
+    kappa = P h/(2 D); layer 1 carries +P, layer 2 -P, each plus its own bending stress E_i kappa z_i.
+    Inputs are 1-D arrays of equal length (or scalars broadcast to them); evaluated in cache-sized
+    chunks. Returns (kappa, sigma1_bottom, sigma1_top, sigma2_bottom, sigma2_top).
+    """
+    arrays = np.broadcast_arrays(*(np.asarray(a, float).ravel() for a in (E1, E2, t1, t2, f1, f2)))
+    size = arrays[0].size
+    out = np.empty((5, size))
+    for start in range(0, size, chunk):
+        stop = min(start + chunk, size)
+        e1, e2, a, b, g1, g2 = (x[start:stop] for x in arrays)
+        k, s1b, s1t, s2b, s2t = out[:, start:stop]
+        ea = e1 * a  # E1 t1
+        eb = e2 * b  # E2 t2
+        h = a + b
+        twelve_d = ea * a * a
+        twelve_d += eb * b * b  # 12 D
+        lam = h * h
+        lam *= 3.0
+        lam /= twelve_d
+        lam += 1.0 / ea
+        lam += 1.0 / eb
+        p = g2 - g1
+        p /= lam  # P = df / lambda
+        np.multiply(p, h, out=k)
+        k *= 6.0
+        k /= twelve_d  # kappa = P h / (2 D) = 6 P h / (12 D)
+        np.divide(p, a, out=s1b)  # P / t1
+        bend = e1 * k
+        bend *= 0.5 * a  # E1 kappa t1 / 2
+        np.add(s1b, bend, out=s1t)
+        s1b -= bend
+        np.divide(p, b, out=s2t)
+        np.negative(s2t, out=s2t)  # -P / t2
+        bend = e2 * k
+        bend *= 0.5 * b
+        np.subtract(s2t, bend, out=s2b)
+        s2t += bend
+    return out[0], out[1], out[2], out[3], out[4]
