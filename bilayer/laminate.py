@@ -91,31 +91,40 @@ def solve(
         EA += Yt
         first_moment += Yt * (heights[0, i, ...] + 0.5 * ti)
     t_b = first_moment / EA
-    EI = np.zeros(shape)
+    # Free strains are taken relative to their stiffness-weighted mean, g_i = f_i - N_T/EA. Since
+    # sum Y_i t_i (z_i - t_b) = 0 this leaves M_T unchanged, and it removes the cancellation that
+    # otherwise appears when one layer dominates the stiffness (its lever arm z_i - t_b is then a
+    # small difference of large numbers, but its g_i is small too).
     N_T = np.zeros(shape)
+    for Yi, ti, fi in zip(Ys, ts, fs):
+        N_T += Yi * ti * fi
+    f_ref = N_T / EA
+    gs = [fi - f_ref for fi in fs]
+    EI = np.zeros(shape)
     M_T = np.zeros(shape)
-    for i, (Yi, ti, fi) in enumerate(zip(Ys, ts, fs)):
+    for i, (Yi, ti, gi) in enumerate(zip(Ys, ts, gs)):
         Yt = Yi * ti
         lever = heights[0, i, ...] + 0.5 * ti - t_b
         EI += Yt * (ti * ti / 12.0 + lever * lever)
-        Ytf = Yt * fi
-        N_T += Ytf
-        M_T += Ytf * lever
+        M_T += Yt * gi * lever
     if restraint == "fixed":
-        c = np.zeros(shape)
+        c_rel = -f_ref
         kappa = np.zeros(shape)
     else:
-        c = (axial_force + N_T) / EA
+        c_rel = axial_force / EA
         kappa = (bending_moment + M_T) / EI if restraint == "free" else np.zeros(shape)
+    c_rel = np.broadcast_to(c_rel, shape)
+    c = np.broadcast_to(c_rel + f_ref, shape)
+    kappa = np.broadcast_to(kappa, shape)
     strain = np.empty((2, n) + shape)  # mechanical strain eps(z) - f_i at bottom and top faces
     stress = np.empty((2, n) + shape)
     for face in (0, 1):
-        for i, (Yi, fi) in enumerate(zip(Ys, fs)):
+        for i, (Yi, gi) in enumerate(zip(Ys, gs)):
             s = strain[face, i, ...]
             np.subtract(heights[face, i, ...], t_b, out=s)
             s *= kappa
-            s += c
-            s -= fi
+            s += c_rel
+            s -= gi
             np.multiply(Yi, s, out=stress[face, i, ...])
 
     def per_layer(values):
