@@ -14,6 +14,7 @@ import pytest
 from bilayer.errors import DesignFileError, InputError, SuspiciousInputWarning, UnknownMaterialError
 from bilayer.materials import (
     ConstantCTE,
+    InstantaneousCTETable,
     Material,
     MaterialLibrary,
     MeanCTETable,
@@ -380,7 +381,8 @@ def test_user_file_round_trip(tmp_path):
     """Write materials (including every CTE kind) and read them back: equal values."""
     library = default_library()
     chosen = [library[k] for k in ("fe36ni", "silicon_100", "steel_plain_carbon", "nickel", "fr4", "solder_sac305")]
-    chosen.append(Material("Table film", 100e9, 0.2, InstantaneousCTETableFor(), key="table_film",
+    table = InstantaneousCTETable((200.0, 300.0, 450.0), (1.0e-6, 2.5e-6, 3.0e-6))
+    chosen.append(Material("Table film", 100e9, 0.2, table, key="table_film",
                            notes='quotes " and \\ and unicode \u00b0C'))
     path = write_material_file(tmp_path / "out.toml", chosen, library.citations)
     back = load_material_file(path)
@@ -388,12 +390,6 @@ def test_user_file_round_trip(tmp_path):
     for material in chosen:
         assert back[material.key] == material
     assert not list(tmp_path.glob(".*.tmp"))  # atomic write left no temporary file
-
-
-def InstantaneousCTETableFor():
-    from bilayer.materials import InstantaneousCTETable
-
-    return InstantaneousCTETable((200.0, 300.0, 450.0), (1.0e-6, 2.5e-6, 3.0e-6))
 
 
 @pytest.mark.parametrize(
@@ -432,12 +428,16 @@ def test_unit_strings_go_through_bilayer_units(tmp_path):
     path = tmp_path / "units.toml"
     path.write_text(
         "[materials.a]\nname = 'A'\nyoungs_modulus = '29e6 psi'\npoisson_ratio = 0.3\n"
-        "cte = '6.5e-6 / delta_degF'\ntemperature_range = ['-40 degC', '150 degC']\n"
+        "cte = '6.5e-6/degF'\ndensity = '7.85 g/cm^3'\ntemperature_range = ['-40 degC', '150 degC']\n"
     )
     material = load_material_file(path)["a"]
     assert material.youngs_modulus == pytest.approx(199.95e9, rel=1e-3)
     assert material.alpha == pytest.approx(11.7e-6, rel=1e-6)
+    assert material.density == pytest.approx(7850.0)
     assert material.temperature_range == pytest.approx((233.15, 423.15))
+    path.write_text("[materials.a]\nname = 'A'\nyoungs_modulus = '200 mm'\npoisson_ratio = 0.3\ncte = 1e-5\n")
+    with pytest.raises(DesignFileError, match=r"\[materials.a\]: youngs_modulus"):
+        load_material_file(path)
 
 
 def test_importing_materials_is_cheap():
@@ -445,7 +445,7 @@ def test_importing_materials_is_cheap():
     code = (
         "import sys, bilayer.materials as m\n"
         "assert m.default_library.cache_info().currsize == 0\n"
-        "heavy = [n for n in ('pint', 'scipy', 'sympy', 'tomllib') if n in sys.modules]\n"
+        "heavy = [n for n in ('pint', 'scipy', 'sympy') if n in sys.modules]\n"
         "assert not heavy, heavy\n"
     )
     subprocess.run([sys.executable, "-c", code], check=True, cwd=ROOT)
