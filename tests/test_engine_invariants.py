@@ -9,7 +9,11 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 import bilayer as bl
+from bilayer.errors import SuspiciousInputWarning
 from bilayer.materials import Material
+
+# random stacks include negative CTEs and extreme moduli on purpose; their warnings are expected
+pytestmark = pytest.mark.filterwarnings("ignore", category=SuspiciousInputWarning)
 
 STATES = st.sampled_from(["narrow", "wide", "plate"])
 
@@ -28,6 +32,12 @@ def stacks(draw, min_layers=1, max_layers=6):
 
 
 temperature_changes = st.floats(-250, 250).filter(lambda x: abs(x) > 1e-3)
+
+
+def stress_scale(stack, dT):
+    """Largest stress the thermal load could produce, E_max * max |f|: the scale for round-off."""
+    E = max(l.material.youngs_modulus for l in stack) / (1 - max(l.material.poisson_ratio for l in stack))
+    return E * 1.5 * max(abs(l.material.alpha) for l in stack) * abs(dT) + 1e-6
 
 
 def _resultants(result):
@@ -61,7 +71,7 @@ def test_reversing_the_layer_order_flips_the_curvature(stack, dT, state):
     assert f.curvature == pytest.approx(-r.curvature, rel=1e-9, abs=1e-12 * abs(r.curvature) + 1e-300)
     assert f.axial_strain == pytest.approx(r.axial_strain, rel=1e-9, abs=1e-18)
     assert f.bending_axis == pytest.approx(r.total_thickness - r.bending_axis, rel=1e-9)
-    scale = np.max(np.abs(np.r_[r.stress_top, r.stress_bottom])) + 1e-6
+    scale = stress_scale(stack, dT)
     np.testing.assert_allclose(f.stress_top[::-1], r.stress_bottom, atol=1e-9 * scale)
     np.testing.assert_allclose(f.stress_bottom[::-1], r.stress_top, atol=1e-9 * scale)
 
@@ -105,18 +115,19 @@ def test_common_cte_shift_changes_only_the_axial_strain(stack, dT, shift, state)
     r, s = bl.evaluate(stack, temps, state), bl.evaluate(shifted, temps, state)
     assert s.curvature == pytest.approx(r.curvature, rel=1e-7, abs=1e-9 * abs(shift * dT) / r.total_thickness)
     assert s.axial_strain - r.axial_strain == pytest.approx(shift * dT, rel=1e-6, abs=1e-15)
-    scale = np.max(np.abs(r.stress_top)) + np.max([l.material.youngs_modulus for l in stack]) * abs(shift * dT)
+    scale = stress_scale(stack, dT) + np.max([l.material.youngs_modulus for l in stack]) * abs(shift * dT)
     np.testing.assert_allclose(s.stress_top, r.stress_top, atol=1e-7 * scale)
 
 
 @settings(max_examples=100, deadline=None)
-@given(stacks(), temperature_changes, st.floats(0.1, 10), STATES)
+@given(stacks(), temperature_changes, st.floats(0.1, 4), STATES)
 def test_linear_in_temperature_change(stack, dT, factor, state):
     a = bl.evaluate(stack, bl.Temperatures(400.0, 400.0 + dT), state)
-    b = bl.evaluate(stack, bl.Temperatures(4000.0, 4000.0 + factor * dT), state)
-    assert b.curvature == pytest.approx(factor * a.curvature, rel=1e-9, abs=1e-300)
+    b = bl.evaluate(stack, bl.Temperatures(1500.0, 1500.0 + factor * dT), state)
+    assert b.curvature == pytest.approx(factor * a.curvature, rel=1e-9,
+                                        abs=1e-12 * factor * abs(a.curvature) + 1e-300)
     np.testing.assert_allclose(b.stress_top, factor * a.stress_top, rtol=1e-9,
-                               atol=1e-9 * factor * (np.max(np.abs(a.stress_top)) + 1e-6))
+                               atol=1e-9 * factor * stress_scale(stack, dT))
 
 
 @settings(max_examples=100, deadline=None)
@@ -126,8 +137,7 @@ def test_scaling_all_thicknesses_scales_curvature_inversely(stack, dT, s, state)
     temps = bl.Temperatures(400.0, 400.0 + dT)
     a, b = bl.evaluate(stack, temps, state), bl.evaluate(scaled, temps, state)
     assert b.curvature == pytest.approx(a.curvature / s, rel=1e-9, abs=1e-300)
-    np.testing.assert_allclose(b.stress_top, a.stress_top, rtol=1e-8,
-                               atol=1e-9 * (np.max(np.abs(a.stress_top)) + 1e-6))
+    np.testing.assert_allclose(b.stress_top, a.stress_top, rtol=1e-8, atol=1e-9 * stress_scale(stack, dT))
 
 
 @settings(max_examples=50, deadline=None)
@@ -138,4 +148,5 @@ def test_vectorised_temperatures_equal_one_by_one(stack, state):
     for k, T in enumerate(temps):
         one = bl.evaluate(stack, bl.Temperatures(320.0, T), state)
         assert many.curvature[k] == pytest.approx(one.curvature, rel=1e-12, abs=1e-300)
-        np.testing.assert_allclose(many.stress_top[k], one.stress_top, rtol=1e-12, atol=1e-6)
+        np.testing.assert_allclose(many.stress_top[k], one.stress_top, rtol=1e-12,
+                                   atol=1e-12 * stress_scale(stack, 250.0))
