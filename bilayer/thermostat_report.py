@@ -107,8 +107,8 @@ class ThermostatReport:
             "cautions": list(self.cautions),
         }
 
-    def to_text(self, system: str = "si") -> str:
-        """A readable summary in the chosen unit system ("si" or "us")."""
+    def to_text(self, system: str = "si", cautions: bool = True) -> str:
+        """A readable summary in the chosen unit system ("si" or "us"), with the cautions unless asked not to."""
         from .units import format as fmt
 
         e = self.element
@@ -119,7 +119,10 @@ class ThermostatReport:
 
         lines = [f"Thermostat element: {self.name or e.form.kind}", f"  {e.describe()}"]
         f = self.flexivity
-        lines.append(f"  flexivity ({f.origin}): {f.per_kelvin:.4g} 1/K = {f.per_fahrenheit:.4g} 1/degF")
+        over = ""
+        if f.temperature_low is not None and f.temperature_high is not None:
+            over = f" over {fmt(f.temperature_low, 'temperature', system)} to {fmt(f.temperature_high, 'temperature', system)}"
+        lines.append(f"  flexivity ({f.origin}{over}): {f.per_kelvin:.4g} 1/K = {f.per_fahrenheit:.4g} 1/degF (ASTM B106)")
         if self.required_gap is not None:
             g = self.required_gap
             lines.append(f"  gap for a set point of {fmt(g.set_point, 'temperature', system)}: {travel(g.gap)} "
@@ -140,9 +143,10 @@ class ThermostatReport:
                          + (f" (utilisation {self.load.utilisation[0]:.3g})" if np.isfinite(self.load.utilisation[0]) else ""))
         if self.span is not None:
             sp = self.span
-            limits = [fmt(t, "temperature", system) if t is not None else "beyond range" for t in (sp.lower_limit, sp.upper_limit)]
+            limits = [fmt(t, "temperature", system) if t is not None else "not reached in the curve range"
+                      for t in (sp.lower_limit, sp.upper_limit)]
             lines.append(f"  usable span (stress): {limits[0]} to {limits[1]}; overtravel "
-                         + (fmt(sp.overtravel, "temperature_difference", system) if sp.overtravel is not None else "beyond range"))
+                         + (fmt(sp.overtravel, "temperature_difference", system) if sp.overtravel is not None else "beyond the curve range"))
         if self.work is not None:
             w = self.work
             lines.append(f"  best work to the set point: {w.work:.4g} J ({w.work_per_volume:.4g} J/m^3); "
@@ -163,8 +167,9 @@ class ThermostatReport:
                 lines.append("  snap disc (INDICATIVE): no snap (dome too shallow)")
         for text in self.warnings:
             lines.append(f"  warning: {text}")
-        lines.append("Cautions:")
-        lines += [f"  - {c}" for c in self.cautions]
+        if cautions:
+            lines.append("Cautions:")
+            lines += [f"  - {c}" for c in self.cautions]
         return "\n".join(lines)
 
 
@@ -173,7 +178,11 @@ def _t(value, fmt, system):
 
 
 def analyse(design: Design, progress: Callable[[int, int], None] | None = None) -> ThermostatReport:
-    """Run the checks the design's [thermostat] section asks for (see the module docstring)."""
+    """Run the checks the design's [thermostat] section asks for (see the module docstring).
+
+    The travel curve and the search for the stress limits cover ``curve_from``..``curve_to`` (default:
+    40 K below the reference temperature to 120 K above it, or past the set point plus twice the overtravel).
+    """
     from .tolerance import Tolerance, first_order_set_point, monte_carlo_set_point
 
     element = element_from_design(design)
@@ -205,9 +214,8 @@ def analyse(design: Design, progress: Callable[[int, int], None] | None = None) 
         load = contact_load(element, gap, [beyond], side, values["stress_factor"], values.get("limit_stress"))
         if np.all(np.isfinite(load.allowable)):
             try:
-                span = working_span(element, gap, side, values["stress_factor"], values.get("limit_stress"))
-                ends = [t for t in (span.lower_limit, span.upper_limit) if t is not None]
-                warnings += strip.data_warnings(np.array(ends + [ref])) if ends else ()
+                span = working_span(element, gap, side, values["stress_factor"], values.get("limit_stress"),
+                                    search=(float(temps.min()), float(temps.max())))
             except InputError as error:
                 warnings.append(f"usable span not computed: {error}")
         else:

@@ -103,3 +103,24 @@ dome_height = "-0.6 mm"
 def test_bad_thermostat_sections_name_the_key(extra, key):
     with pytest.raises(DesignFileError, match=key):
         read_design_text(BASE + "[thermostat]\n" + extra)
+
+
+def test_command_line_runs_the_example(capsys):
+    from bilayer.cli import main
+
+    assert main(["thermostat", str(EXAMPLE), "--no-monte-carlo", "--units", "us"]) == 0
+    out = capsys.readouterr().out
+    assert "set point" in out and "degF" in out and "IEC 60730" in out
+    assert main(["thermostat", str(EXAMPLE), "--json", "--samples", "2000"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["tolerance_monte_carlo"]["samples"] == 2000
+    assert any("IEC 60730" in c for c in data["cautions"])
+
+
+def test_command_line_refuses_a_design_without_thermostat_table(tmp_path, capsys):
+    from bilayer.cli import main
+
+    path = tmp_path / "plain.toml"
+    path.write_text(BASE)
+    assert main(["thermostat", str(path)]) == 2
+    assert "[thermostat]" in capsys.readouterr().err
