@@ -77,6 +77,7 @@ def monte_carlo(samples=1_000_000):
         closing_temperature(ThermalElement(scaled, e.form), gap)
     t_scalar = (time.perf_counter() - start) / few * samples
     result = monte_carlo_set_point(e, gap, tol, samples=samples)
+    first_order_set_point(e, gap, tol)  # the symbolic sensitivities are derived once and cached
     first = first_order_set_point(e, gap, tol)
     print(f"set-point Monte Carlo, {samples:.0e} samples, 8 tolerances: {t_mc:.3f} s; "
           f"target 1 s: {'met' if t_mc < 1.0 else 'NOT met'}")

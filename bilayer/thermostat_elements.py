@@ -180,7 +180,11 @@ class ElementForm:
 
     def inverse_travel(self, travel, *, exact: bool = True):
         """Curvature change [1/m] that gives ``travel`` (array); exact kinematics by Newton iteration
-        started from the small-deflection value, or the small-deflection inverse."""
+        started from the small-deflection value, or the small-deflection inverse.
+
+        At large rotation the exact travel of a form passes through a maximum (a cantilever at
+        k L ~ 2.33 rad); the root returned is the one on the branch that starts at zero.
+        """
         travel = np.asarray(travel, float)
         rate = self.travel_rate()
         dkappa = travel / rate
