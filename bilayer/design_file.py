@@ -45,6 +45,7 @@ __all__ = [
     "read_design_text",
     "save_design",
     "design_to_text",
+    "write_text_atomic",
 ]
 
 FORMAT_VERSION = 1
@@ -355,7 +356,11 @@ def save_design(design: Any, path: "str | os.PathLike", results: Any = None, sys
     fsync'ed, and replaces ``path`` with ``os.replace``. On any failure the old file is untouched
     and the temporary file removed.
     """
-    text = design_to_text(design, results, system, library)
+    return write_text_atomic(path, design_to_text(design, results, system, library))
+
+
+def write_text_atomic(path: "str | os.PathLike", text: str) -> Path:
+    """Write ``text`` to ``path`` through a temporary file in the same directory, fsync and os.replace."""
     path = Path(path)
     handle, temporary = tempfile.mkstemp(dir=path.parent if str(path.parent) else ".", prefix=f".{path.name}.",
                                          suffix=".tmp")
@@ -364,12 +369,23 @@ def save_design(design: Any, path: "str | os.PathLike", results: Any = None, sys
             stream.write(text)
             stream.flush()
             os.fsync(stream.fileno())
+        os.chmod(temporary, _file_mode(path))
         os.replace(temporary, path)
     except BaseException:
         if os.path.exists(temporary):
             os.unlink(temporary)
         raise
     return path
+
+
+def _file_mode(path: Path) -> int:
+    """Keep the mode of the file being replaced; a new file gets 0o666 less the umask."""
+    try:
+        return path.stat().st_mode & 0o7777
+    except OSError:
+        umask = os.umask(0)
+        os.umask(umask)
+        return 0o666 & ~umask
 
 
 # --- a small TOML writer (tables and arrays of tables in our order, no inline tables) --------------

@@ -401,7 +401,9 @@ def from_si(value_si: Any, kind: str, label: str) -> Any:
         if label not in _OFFSETS and label != "K":
             raise InputError("unit", label, "K, degC or degF")
         if isinstance(value_si, numbers.Real) and math.isfinite(value_si):
-            return float(Fraction(value_si) / scale - zero)
+            shown = float(Fraction(value_si) / scale - zero)
+            # 0 degC is 273.15 K only to within the rounding of the kelvin float: show it as 0
+            return 0.0 if abs(shown) < 1e-12 * abs(value_si) else shown
         return value_si / float(scale) - float(zero)
     factor = _factor(info.si_unit, label)
     if isinstance(value_si, numbers.Real) and math.isfinite(value_si):

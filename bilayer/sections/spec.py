@@ -176,17 +176,22 @@ class Field:
         return exact_text(float(value), self.kind, system)
 
 
-def _plain_number(number: float, digits: int) -> str:
-    text = f"{number:.{digits}g}"
-    if "e" in text and 1e-4 <= abs(number) < 1e15:
-        text = f"{Decimal(text):f}"
-    return text
+def _candidates(number: float):
+    """Texts of ``number``, shortest first: fixed-point with 0-17 decimals, then 1-17 significant digits."""
+    if abs(number) < 1e15:
+        for decimals in range(18):
+            yield f"{number:.{decimals}f}"
+    for digits in range(1, 18):
+        text = f"{number:.{digits}g}"
+        if "e" in text and 1e-4 <= abs(number) < 1e15:
+            text = f"{Decimal(text):f}"
+        yield text
 
 
 def exact_text(value: float, kind: str, system: str = "si") -> str | float:
     """A readable unit text for ``value`` (SI) that :func:`bilayer.units.parse` reads back exactly.
 
-    Tries the display unit of ``system`` with 1 to 17 significant digits, then the repr of the SI
+    Tries the display unit of ``system`` with the shortest number text first, then the repr of the SI
     value with its SI unit; dimensionless values stay plain numbers.
     """
     from ..units import display_unit, from_si, kind_info, parse
@@ -198,10 +203,15 @@ def exact_text(value: float, kind: str, system: str = "si") -> str | float:
         return value
     label = display_unit(kind, system, value)
     number = from_si(value, kind, label)
-    for digits in range(1, 18):
-        text = f"{_plain_number(number, digits)} {label}"
-        if parse(text, kind) == value:
-            return text
+    for candidate in _candidates(number):
+        if float(candidate) == 0.0:
+            candidate = "0"
+        text = f"{candidate} {label}"
+        try:
+            if parse(text, kind) == value:
+                return text
+        except InputError:  # e.g. a text too long to read back
+            continue
     text = f"{value!r} {info.si_unit}"
     return text if parse(text, kind) == value else value
 
