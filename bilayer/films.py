@@ -54,6 +54,10 @@ __all__ = [
     "curvature_from_bow",
     "bow_from_curvature",
     "STONEY_ASSUMPTIONS",
+    "FilmThermalResult",
+    "film_thermal_stress",
+    "FilmAssessment",
+    "assess_film_design",
 ]
 
 SILICON_STIFFNESS = {"c11": 165.7e9, "c12": 63.9e9, "c44": 79.6e9}
@@ -441,3 +445,177 @@ def film_properties_from_two_substrates(
             "substrate CTEs are secant values over the scan range",
         ),
     )
+
+
+# ------------------------------------------------------------------------- thermal film stress
+@dataclass(frozen=True, eq=False)
+class FilmThermalResult:
+    """Thermal film stress and curvature of a film/substrate pair from the engine, beside Stoney (SI)."""
+
+    stack_result: object
+    substrate_biaxial_modulus: float
+    film_biaxial_modulus: float
+    misfit_strain: "float | np.ndarray"
+    curvature: "float | np.ndarray"
+    stoney_curvature: "float | np.ndarray"
+    mean_film_stress: "float | np.ndarray"
+    stoney_stress: "float | np.ndarray"
+    span: float | None
+    bow: "float | np.ndarray | None"
+    warnings: tuple[str, ...]
+    assumptions: tuple[str, ...]
+
+    @property
+    def curvature_error(self):
+        """kappa_Stoney/kappa_exact - 1 for the known misfit (Stoney used as a predictor)."""
+        return _out(np.asarray(self.stoney_curvature) / np.asarray(self.curvature) - 1.0)
+
+    @property
+    def stress_error(self):
+        """sigma_Stoney/<sigma_f> - 1 for the curvature the exact bilayer has (Stoney used as a gauge)."""
+        return _out(np.asarray(self.stoney_stress) / np.asarray(self.mean_film_stress) - 1.0)
+
+    def to_dict(self) -> dict:
+        from .results import _plain
+
+        return {
+            "substrate_biaxial_modulus": self.substrate_biaxial_modulus,
+            "film_biaxial_modulus": self.film_biaxial_modulus,
+            "misfit_strain": _plain(self.misfit_strain),
+            "curvature": _plain(self.curvature),
+            "stoney_curvature": _plain(self.stoney_curvature),
+            "curvature_error": _plain(self.curvature_error),
+            "mean_film_stress": _plain(self.mean_film_stress),
+            "stoney_stress": _plain(self.stoney_stress),
+            "stress_error": _plain(self.stress_error),
+            "span": self.span,
+            "bow": None if self.bow is None else _plain(self.bow),
+            "sign_convention": "kappa > 0 film side convex; bow > 0 centre high with the film up; stress > 0 tension",
+            "stack": self.stack_result.to_dict(),
+            "warnings": list(self.warnings),
+            "assumptions": list(self.assumptions),
+            "units": {
+                "substrate_biaxial_modulus": "Pa", "film_biaxial_modulus": "Pa", "misfit_strain": "1",
+                "curvature": "1/m", "stoney_curvature": "1/m", "curvature_error": "1", "mean_film_stress": "Pa",
+                "stoney_stress": "Pa", "stress_error": "1", "span": "m", "bow": "m",
+            },
+        }
+
+
+def _substrate_with_modulus(substrate, biaxial_modulus: float):
+    """The substrate material with E set so that E/(1-nu) equals the given biaxial modulus."""
+    return substrate.with_changes(youngs_modulus=biaxial_modulus * (1.0 - substrate.poisson_ratio))
+
+
+def film_thermal_stress(stack, temperatures, substrate_biaxial_modulus: float | None = None,
+                        span: float | None = None) -> FilmThermalResult:
+    """Thermal film stress of a two-layer stack (substrate at the bottom, film on top) in the plate state.
+
+    The engine gives the exact curvature and mean film stress; beside them Stoney's curvature for the
+    same misfit, eps_m = eps_th,substrate - eps_th,film (integrated CTEs), and Stoney's stress read from
+    the exact curvature. ``substrate_biaxial_modulus`` (e.g. :func:`silicon_biaxial_modulus`) replaces
+    E/(1-nu) of the substrate material; ``span`` adds the bow over that diameter.
+    """
+    from .stack import Layer, Stack, evaluate
+
+    if not isinstance(stack, Stack) or stack.n_layers != 2:
+        raise InputError("stack", stack, "a two-layer Stack: substrate (layer 1) and film (layer 2)")
+    substrate, film = stack.layers
+    if substrate_biaxial_modulus is not None:
+        modulus = check_range("substrate_biaxial_modulus", substrate_biaxial_modulus, 0.0, 2e12, unit="Pa")
+        stack = Stack((Layer(_substrate_with_modulus(substrate.material, modulus), substrate.thickness, substrate.label),
+                       film))
+        substrate = stack.layers[0]
+    result = evaluate(stack, temperatures, "plate")
+    ms, mf = substrate.material.biaxial_modulus, film.material.biaxial_modulus
+    hs, hf = substrate.thickness, film.thickness
+    t0, t = temperatures.stress_free, temperatures.operating
+    misfit = _out(np.asarray(substrate.material.cte.thermal_strain(t0, t), float)
+                  - np.asarray(film.material.cte.thermal_strain(t0, t), float))
+    kappa = result.curvature
+    mean_stress = _out(np.asarray(result.layer_force)[..., 1] / hf)
+    warnings = list(result.warnings)
+    if hf / hs > THICK_FILM_RATIO:
+        warnings.append(f"film/substrate thickness ratio {hf / hs:.3g} > {THICK_FILM_RATIO}: Stoney is far off")
+    bow = None
+    if span is not None:
+        span = check_range("span", span, 0.0, 10.0, unit="m")
+        bow = bow_from_curvature(kappa, span)
+    return FilmThermalResult(
+        stack_result=result,
+        substrate_biaxial_modulus=ms,
+        film_biaxial_modulus=mf,
+        misfit_strain=misfit,
+        curvature=kappa,
+        stoney_curvature=stoney_curvature(mf * np.asarray(misfit), hs, hf, ms),
+        mean_film_stress=mean_stress,
+        stoney_stress=stoney_stress(kappa, hs, hf, ms),
+        span=span,
+        bow=bow,
+        warnings=tuple(warnings),
+        assumptions=tuple(result.assumptions) + (
+            "film stress is thermal only: intrinsic (growth) stress is not included",
+        ),
+    )
+
+
+# ---------------------------------------------------------------------------------- design files
+@dataclass(frozen=True, eq=False)
+class FilmAssessment:
+    """Thermal stress of the design's film, and (when given) stress from measured bow and the
+    two-substrate inversion."""
+
+    thermal: FilmThermalResult
+    measured: FilmStressResult | None
+    two_substrate: TwoSubstrateResult | None
+
+    @property
+    def warnings(self) -> tuple[str, ...]:
+        out = self.thermal.warnings
+        for part in (self.measured, self.two_substrate):
+            out += () if part is None else part.warnings
+        return out
+
+    def to_dict(self) -> dict:
+        return {
+            "thermal": self.thermal.to_dict(),
+            "measured": None if self.measured is None else self.measured.to_dict(),
+            "two_substrate": None if self.two_substrate is None else self.two_substrate.to_dict(),
+        }
+
+
+def assess_film_design(design) -> FilmAssessment:
+    """Run the ``[film]`` section of a two-layer design (substrate, film)."""
+    if "film" not in design.sections:
+        raise InputError("design.sections", sorted(design.sections), "a [film] section")
+    if design.stack.n_layers != 2:
+        raise InputError("design.layers", design.stack.n_layers, "2 layers: substrate (bottom) and film")
+    values = design.sections["film"]
+    substrate, film = design.stack.layers
+    modulus = values.get("substrate_biaxial_modulus")
+    orientation = values.get("substrate_orientation", "isotropic")
+    if modulus is None and orientation != "isotropic":
+        modulus = silicon_biaxial_modulus(orientation)
+    ms = substrate.material.biaxial_modulus if modulus is None else modulus
+    span = values.get("scan_diameter")
+    thermal = film_thermal_stress(design.stack, design.temperatures, modulus, span)
+    mf = film.material.biaxial_modulus if values.get("exact_correction", True) else None
+    facing = values.get("film_facing", "up")
+    measured = None
+    if "bow_after" in values:
+        measured = film_stress_from_bow(values["bow_after"], span, substrate.thickness, film.thickness, ms,
+                                        values.get("bow_before", 0.0), mf, facing)
+    elif "curvature_after" in values:
+        measured = film_stress_from_curvature(values["curvature_after"], substrate.thickness, film.thickness, ms,
+                                              values.get("curvature_before", 0.0), mf, span, facing)
+    two = None
+    if "scan_temperatures" in values:
+        temps = values["scan_temperatures"]
+        low, high = min(temps), max(temps)
+        cte_1 = substrate.material.cte.secant(low, high)
+        two = film_properties_from_two_substrates(
+            stress_temperature_slope(temps, values["scan_stress_1"]),
+            stress_temperature_slope(temps, values["scan_stress_2"]),
+            float(cte_1), values["second_substrate_cte"],
+        )
+    return FilmAssessment(thermal, measured, two)

@@ -28,7 +28,8 @@ from typing import TYPE_CHECKING, Mapping
 
 import numpy as np
 
-from .errors import InputError, check_finite, check_range, warn_suspicious
+from .cautions import CAUTIONS
+from .errors import InputError, check_range, warn_suspicious
 
 if TYPE_CHECKING:  # pragma: no cover
     from .results import StackResult
@@ -54,6 +55,8 @@ __all__ = [
     "WarpageResult",
     "assembly_warpage",
     "SOLDER_CAUTIONS",
+    "SolderAssessment",
+    "assess_solder_design",
 ]
 
 ZERO_CELSIUS = 273.15
@@ -69,9 +72,8 @@ SOLDER_CAUTIONS = (
     "underfilled or compliant-lead joints without their own factors.",
     "The life is the median of a wide distribution; early failures follow from the assumed Weibull shape. "
     "Acceleration factors differ by up to about ten times between published parameter sets.",
-    "Check the stress-free temperature, the sign of the temperature change and that the CTEs are secant "
-    "values over the cycle: these are the commonest causes of wrong answers.",
 )
+"""Job-specific cautions; results carry them after the shared :data:`bilayer.cautions.CAUTIONS`."""
 
 
 # --------------------------------------------------------------------------------------------- cycles
@@ -366,7 +368,7 @@ class SolderJointResult:
     test_median_life: float | None
     warnings: tuple[str, ...]
     assumptions: tuple[str, ...]
-    cautions: tuple[str, ...] = field(default=SOLDER_CAUTIONS)
+    cautions: tuple[str, ...] = field(default=CAUTIONS + SOLDER_CAUTIONS)
 
     @property
     def engelmaier_acceleration(self) -> float | None:
@@ -488,10 +490,10 @@ def check_solder_joint(
         solidus = getattr(solder, "solidus", None)
         if solidus is not None and max(cycle.high, board_cycle.high) >= solidus:
             raise InputError("cycle.high", cycle.high, f"below the solder solidus {solidus:g} K")
-        if max(local_component, local_board) > abs(mismatch):
+        if max(local_component, local_board) > gamma:
             warnings.append(
-                "local (solder to part) mismatch exceeds the global mismatch strain: the DNP model alone "
-                "does not describe this joint"
+                "local (solder to part) mismatch strain exceeds the global DNP shear strain: the DNP model "
+                "alone does not describe this joint"
             )
     c = float(engelmaier_exponent(cycle.mean, cycle.dwell))
     median = float(engelmaier_median_life(gamma, cycle.mean, cycle.dwell, eps_f))
@@ -527,7 +529,6 @@ def check_solder_joint(
         "Engelmaier-Wild coefficients for eutectic or near-eutectic Sn-Pb",
         f"Weibull shape beta = {shape:g} assumed for the spread (beta = 4 is a typical Sn-Pb value, from memory)",
         "CTEs integrated over each part's own cycle (secant values)",
-        NORRIS_LANDZBERG_CONVENTION,
     )
     return SolderJointResult(
         dnp=dnp,
@@ -571,7 +572,7 @@ class WarpageResult:
     bow_diagonal: "float | np.ndarray"
     warnings: tuple[str, ...]
     assumptions: tuple[str, ...]
-    cautions: tuple[str, ...] = field(default=SOLDER_CAUTIONS)
+    cautions: tuple[str, ...] = field(default=CAUTIONS + SOLDER_CAUTIONS)
 
     def to_dict(self) -> dict:
         from .results import _plain
@@ -661,3 +662,84 @@ def assembly_warpage(
             "elastic layers: yielding or creep of solder and copper lowers the real warpage",
         ),
     )
+
+
+# ---------------------------------------------------------------------------------- design files
+@dataclass(frozen=True, eq=False)
+class SolderAssessment:
+    """Joint screening and (when an outline is given) assembly warpage of one design."""
+
+    joint: SolderJointResult
+    warpage: WarpageResult | None
+
+    @property
+    def warnings(self) -> tuple[str, ...]:
+        return self.joint.warnings + (() if self.warpage is None else self.warpage.warnings)
+
+    @property
+    def cautions(self) -> tuple[str, ...]:
+        return self.joint.cautions
+
+    def to_dict(self) -> dict:
+        return {
+            "solder_joint": self.joint.to_dict(),
+            "warpage": None if self.warpage is None else self.warpage.to_dict(),
+        }
+
+
+def _design_material(design, name: str):
+    """A material named in a section: a layer material with that key or name, else the library."""
+    from .materials import get_material
+
+    for layer in design.stack.layers:
+        if name in (layer.material.key, layer.material.name):
+            return layer.material
+    return get_material(name)
+
+
+def _layer_number(design, values, key: str, default: int) -> int:
+    number = values.get(key, default)
+    if not 1 <= number <= design.stack.n_layers:
+        raise InputError(f"solder_joint.{key}", number, f"a layer number 1 to {design.stack.n_layers}")
+    return number
+
+
+def assess_solder_design(design) -> SolderAssessment:
+    """Run the ``[solder_joint]`` section of a design: joint screening and warpage.
+
+    The board and component CTEs come from the design's layers; the warpage uses the design's stack
+    and operating temperature(s), with the stress-free temperature from [conditions] (an effective
+    value) or the solder solidus (``stress_free_basis = "solidus"``).
+    """
+    if "solder_joint" not in design.sections:
+        raise InputError("design.sections", sorted(design.sections), "a [solder_joint] section")
+    values = dict(design.sections["solder_joint"])
+    board = design.stack[_layer_number(design, values, "board_layer", 1) - 1].material
+    component = design.stack[_layer_number(design, values, "component_layer", design.stack.n_layers) - 1].material
+    solder_material = _design_material(design, values["solder_material"]) if "solder_material" in values else None
+    field_cycle = CycleProfile(values["cycle_low"], values["cycle_high"], values["dwell"],
+                               values["cycle_rate"] * 86400.0, "field cycle")
+    board_cycle = None
+    if "board_cycle_low" in values:
+        board_cycle = CycleProfile(values["board_cycle_low"], values["board_cycle_high"], values["dwell"],
+                                   values["cycle_rate"] * 86400.0, "board cycle")
+    test = None
+    if "test_cycle" in values:
+        rate = values.get("test_cycle_rate")
+        test = preset_cycle(values["test_cycle"], values.get("test_dwell"), None if rate is None else rate * 86400.0)
+    joint = check_solder_joint(
+        values["dnp"], values["standoff"], component, board, field_cycle, values.get("nonideality_factor", 1.0),
+        board_cycle=board_cycle, solder=solder_material, ductility=values.get("ductility", TIN_LEAD_DUCTILITY),
+        weibull_shape=values.get("weibull_shape", 4.0), early_fraction=values.get("early_fraction", 0.01),
+        test=test, acceleration_set=values.get("acceleration_set", "snpb_1969"),
+    )
+    warpage = None
+    if "outline_length" in values:
+        by_solidus = values.get("stress_free_basis", "conditions") == "solidus"
+        warpage = assembly_warpage(
+            design.stack, design.temperatures.operating, values["outline_length"], values.get("outline_width"),
+            solder=solder_material if by_solidus else None,
+            stress_free_temperature=None if by_solidus else design.temperatures.stress_free,
+            state=design.state.value,
+        )
+    return SolderAssessment(joint, warpage)

@@ -2,7 +2,6 @@
 two-substrate inversion. Each check names its source; derived values from the reference sheets are
 recomputed here by a second route (the engine's N-layer kernel, a rotated stiffness tensor, geometry).
 """
-import math
 
 import numpy as np
 import pytest
@@ -223,3 +222,53 @@ def test_two_substrate_bad_input():
         films.film_properties_from_two_substrates(-1e6, -2e6, 3e-6, 3e-6)
     with pytest.raises(InputError, match="temperatures"):
         films.stress_temperature_slope([300, 300], [1.0, 2.0])
+
+
+# ------------------------------------------------------------------------ design file and command
+def _example_path():
+    from pathlib import Path
+
+    return Path(__file__).resolve().parent.parent / "examples" / "nitride_on_wafer.toml"
+
+
+def test_thermal_film_stress_matches_stoney_in_the_thin_limit():
+    """Thermal misfit of a thin film (layers.md sec. 4.1 misfit form): <sigma_f> -> M_f eps_m with
+    eps_m = integral (alpha_s - alpha_f) dT, exactly <sigma_f>/(M_f eps_m) = (1 + g r^3)/(1 + 4gr + 6gr^2
+    + 4gr^3 + g^2 r^4) = 1 - 4gr + O(r^2) (derived from force and moment balance, checked with sympy);
+    the curvature ratio equals the closed form of sec. 4.2."""
+    from bilayer import Stack, Temperatures
+    from bilayer.materials import Material
+
+    substrate = Material("substrate", 130e9, 0.28, 2.6e-6)
+    film = Material("film", 200e9, 0.25, 12e-6)
+    result = films.film_thermal_stress(Stack.of((substrate, 500e-6), (film, 0.5e-6)), Temperatures(673.15, 298.15))
+    misfit = (2.6e-6 - 12e-6) * (298.15 - 673.15)
+    assert result.misfit_strain == pytest.approx(misfit, rel=1e-12)
+    r, g = 1e-3, film.biaxial_modulus / substrate.biaxial_modulus
+    exact = (1 + g * r**3) / (1 + 4 * g * r + 6 * g * r**2 + 4 * g * r**3 + g**2 * r**4)
+    assert result.mean_film_stress / (film.biaxial_modulus * misfit) == pytest.approx(exact, rel=1e-10)
+    assert exact == pytest.approx(1 - 4 * g * r, abs=20 * (g * r) ** 2)
+    assert result.curvature / result.stoney_curvature == pytest.approx(films.stoney_curvature_ratio(r, g), rel=1e-9)
+    assert result.stress_error == pytest.approx(films.stoney_stress_ratio(r, g) - 1, abs=1e-9)
+
+
+def test_example_design_and_command_line(capsys):
+    """The shipped example (invented data) runs from the design file and the command line; its scan
+    data were made with M_f = 360 GPa and alpha_f = 3.0 ppm/K, which the two-substrate fit recovers."""
+    import json
+
+    from bilayer.cli import main
+    from bilayer.design_file import load_design
+
+    assessment = films.assess_film_design(load_design(_example_path()))
+    assert assessment.two_substrate.film_biaxial_modulus == pytest.approx(360e9, rel=2e-3)
+    assert assessment.two_substrate.film_cte == pytest.approx(3.0e-6, rel=2e-3)
+    assert assessment.measured.stoney_stress > 0  # centre went down with the film up: tensile film
+    assert assessment.thermal.substrate_biaxial_modulus == pytest.approx(films.silicon_biaxial_modulus("100"))
+    assert main(["film", str(_example_path())]) == 0
+    text = capsys.readouterr().out
+    for needle in ("film side convex", "Stoney stress", "exact mean stress", "film biaxial modulus", "Cautions"):
+        assert needle in text
+    assert main(["film", str(_example_path()), "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["measured"]["stoney_stress"] == pytest.approx(assessment.measured.stoney_stress)

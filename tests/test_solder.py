@@ -245,3 +245,62 @@ def test_warpage_needs_a_stress_free_temperature():
                 stack, 300.0, 0.01, solder=Material("solder", 30e9, 0.4, 24e-6, solidus=456.0),
                 stress_free_temperature=500.0,
             )
+
+
+# ------------------------------------------------------------------------ design file and command
+EXAMPLE = "examples/irrigation_timer_chip_carrier.toml"
+
+
+def _example_path():
+    from pathlib import Path
+
+    return Path(__file__).resolve().parent.parent / EXAMPLE
+
+
+def test_example_design_runs_and_matches_direct_calls():
+    """The shipped example (invented) through the design file equals the direct API calls."""
+    from bilayer.design_file import load_design
+    from bilayer.materials import get_material
+
+    design = load_design(_example_path())
+    assessment = solder.assess_solder_design(design)
+    direct = solder.check_solder_joint(
+        5.37e-3, 0.1e-3, get_material("alumina_96"), get_material("fr4"),
+        solder.CycleProfile(5 + C0, 55 + C0, 4 * 3600.0, 1.0), solder=get_material("solder_sn63pb37"),
+        test=solder.preset_cycle("-40/+125", 900.0, 24.0),
+    )
+    assert assessment.joint.shear_strain == pytest.approx(direct.shear_strain, rel=1e-12)
+    assert assessment.joint.median_life == pytest.approx(direct.median_life, rel=1e-12)
+    assert assessment.joint.acceleration_factor == pytest.approx(direct.acceleration_factor, rel=1e-12)
+    warpage = solder.assembly_warpage(design.stack, design.temperatures.operating, 7.6e-3,
+                                      stress_free_temperature=150 + C0)
+    assert assessment.warpage.curvature == pytest.approx(warpage.curvature, rel=1e-12)
+
+
+def test_command_line_prints_convention_and_cautions(capsys):
+    import json
+
+    from bilayer.cli import main
+
+    assert main(["solder", str(_example_path())]) == 0
+    text = capsys.readouterr().out
+    for needle in ("median life N50", "Norris-Landzberg AF", "N_field / N_test", "IPC-9701", "vibration",
+                   "Assembly warpage", "from memory"):
+        assert needle in text
+    assert main(["solder", str(_example_path()), "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert data["solder_joint"]["acceleration_convention"] == solder.NORRIS_LANDZBERG_CONVENTION
+    assert len(data["warpage"]["curvature"]) == 3
+
+
+def test_design_file_section_errors_name_the_key():
+    from bilayer.design_file import read_design_text
+    from bilayer.errors import DesignFileError
+
+    text = _example_path().read_text()
+    with pytest.raises(DesignFileError, match="standof"):
+        read_design_text(text.replace('standoff = "0.1 mm"', 'standof = "0.1 mm"'))
+    with pytest.raises(DesignFileError, match="cycle_high"):
+        read_design_text(text.replace('cycle_high = "55 degC"', 'cycle_high = "0 degC"'))
+    with pytest.raises(InputError, match="test profile"):  # the preset name is checked when the job runs
+        solder.assess_solder_design(read_design_text(text.replace('"-40/+125"', '"-41/+125"')).design)
