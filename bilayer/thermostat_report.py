@@ -80,6 +80,7 @@ class ThermostatReport:
     first_order: Any
     monte_carlo: Any
     snap: Any
+    sizing: Any
     warnings: tuple[str, ...]
     assumptions: tuple[str, ...] = THERMOSTAT_ASSUMPTIONS
     cautions: tuple[str, ...] = THERMOSTAT_CAUTIONS
@@ -102,6 +103,7 @@ class ThermostatReport:
             "tolerance_first_order": part(self.first_order),
             "tolerance_monte_carlo": part(self.monte_carlo),
             "snap_disc": part(self.snap),
+            "sizing": part(self.sizing),
             "warnings": list(self.warnings),
             "assumptions": list(self.assumptions),
             "cautions": list(self.cautions),
@@ -118,6 +120,11 @@ class ThermostatReport:
             return fmt(x, "angle", system) if rot else fmt(x, "length", system)
 
         lines = [f"Thermostat element: {self.name or e.form.kind}", f"  {e.describe()}"]
+        if self.sizing is not None:
+            z = self.sizing
+            lines.append(f"  sized: thickness {fmt(z.thickness, 'length', system)}, size {fmt(z.size, 'length', system)} "
+                         f"(force {fmt(z.force, 'force', system)} after the overtravel; "
+                         f"{'within' if z.within_limit else 'ABOVE'} the stress limit, utilisation {z.utilisation:.3g})")
         f = self.flexivity
         over = ""
         if f.temperature_low is not None and f.temperature_high is not None:
@@ -187,6 +194,14 @@ def analyse(design: Design, progress: Callable[[int, int], None] | None = None) 
 
     element = element_from_design(design)
     values = dict(design.sections["thermostat"])
+    sizing = None
+    if values.get("sizing_force") is not None:
+        from .thermostat_design import size_element
+
+        sizing = size_element(element.strip, element.form, values["gap"], values["set_point"], values["sizing_force"],
+                              values["overtravel"], factor=values["stress_factor"], limit_stress=values.get("limit_stress"))
+        element = sizing.element
+        values.pop("set_point")
     strip = element.strip
     ref = element.reference_temperature
     warnings: list[str] = []
@@ -231,7 +246,7 @@ def analyse(design: Design, progress: Callable[[int, int], None] | None = None) 
 
         snap = snap_temperatures(SnapDisc(strip, values["diameter"], values["dome_height"]))
     return ThermostatReport(design.name, element, flex, curve, set_point, gap, required, load, span, work, first, mc,
-                            snap, tuple(dict.fromkeys(curve.warnings + tuple(warnings))))
+                            snap, sizing, tuple(dict.fromkeys(curve.warnings + tuple(warnings))))
 
 
 def _tolerances(element: ThermalElement, values: dict, Tolerance) -> dict:

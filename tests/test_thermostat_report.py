@@ -124,3 +124,38 @@ def test_command_line_refuses_a_design_without_thermostat_table(tmp_path, capsys
     path.write_text(BASE)
     assert main(["thermostat", str(path)]) == 2
     assert "[thermostat]" in capsys.readouterr().err
+
+
+def test_sizing_from_a_design_file_meets_both_targets():
+    """sizing_force: the sized element closes `gap` at `set_point` and pushes `sizing_force` after the
+    overtravel (checked by direct calls on the sized element)."""
+    from bilayer.thermostat import contact_load
+
+    design = read_design_text(BASE + """
+[thermostat]
+form = "cantilever"
+width = "5 mm"
+length = "30 mm"
+gap = "1 mm"
+set_point = "70 degC"
+sizing_force = "0.3 N"
+overtravel = "10 K"
+limit_stress = "300 MPa"
+""").design
+    report = analyse(design)
+    element = report.sizing.element
+    assert closing_temperature(element, 1e-3).temperature == pytest.approx(343.15, abs=1e-6)
+    assert contact_load(element, 1e-3, [353.15]).force[0] == pytest.approx(0.3, rel=1e-6)
+    assert "sized:" in report.to_text()
+
+
+def test_command_line_design_helpers(capsys):
+    from bilayer.cli import main
+
+    assert main(["thermostat", str(EXAMPLE), "--no-monte-carlo", "--optimum-ratio", "--rank-pairs", "flexivity",
+                 "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    # Timoshenko (1925): flexivity at the optimum ratio is 1.5 x the (secant) CTE difference
+    assert data["optimum_ratio"]["flexivity_over_cte_difference"] == pytest.approx(1.5, rel=1e-9)
+    flex = [row["flexivity"] for row in data["ranked_pairs"] if row["admissible"]]
+    assert flex == sorted(flex, reverse=True)

@@ -32,7 +32,15 @@ def _consistent(values: dict, location: Location) -> dict:
         raise location.error("gap", values["gap"], "angle_gap for a coil (its output is a rotation)")
     if not coil and "angle_gap" in values:
         raise location.error("angle_gap", values["angle_gap"], "gap (a length) for this form")
-    if "set_point" in values and ("gap" in values or "angle_gap" in values):
+    if "sizing_force" in values:
+        if coil or form == "disc" or "flexivity" in values:
+            raise location.error("sizing_force", values["sizing_force"], "a strip form (cantilever, supported, u_shape) with layers")
+        for key in ("set_point", "gap"):
+            if key not in values:
+                raise location.error(key, None, "a value when sizing_force is given (travel gap at set_point)", "required key is missing")
+        if not values.get("overtravel"):
+            raise location.error("overtravel", values.get("overtravel"), "> 0 K when sizing_force is given")
+    elif "set_point" in values and ("gap" in values or "angle_gap" in values):
         raise location.error("set_point", values["set_point"], "either set_point (gap is then solved) or a gap, not both")
     if "flexivity" in values:
         for key in ("strip_thickness", "flexural_modulus"):
@@ -93,6 +101,8 @@ SECTION = SectionSpec(
               doc="data-sheet path: +/- relative tolerance on the flexivity"),
         Field("tolerance_gap", "length", low=0.0, inclusive=True, doc="+/- tolerance on the gap (or on the angle for coils, in rad)"),
         Field("samples", INTEGER, default=200000, low=1, high=100000000, inclusive=True, doc="Monte Carlo samples"),
+        Field("sizing_force", "force", low=0.0,
+              doc="solve thickness and length: travel `gap` at `set_point`, then push this force after `overtravel`"),
         Field("dome_height", "length", doc="disc: formed dome rise for the indicative snap-disc estimate (signed)"),
         Field("monte_carlo", BOOLEAN, default=True, doc="run the Monte Carlo besides first-order propagation"),
     ),
