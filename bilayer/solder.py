@@ -175,10 +175,13 @@ names beside them are recalled, not read in the standards: check the current edi
 
 def preset_cycle(name: str, dwell: float | None = None, cycles_per_day: float | None = None) -> CycleProfile:
     """A preset from :data:`CYCLING_PRESETS` by its range name, e.g. "-40/+125" (degC), optionally re-timed."""
-    key = str(name).replace(" ", "").replace("degC", "").replace("C", "")
-    if key not in CYCLING_PRESETS:
+    def plain(text: str) -> str:
+        return str(text).replace(" ", "").replace("degC", "").replace("+", "")
+
+    matches = [preset for key, preset in CYCLING_PRESETS.items() if plain(key) == plain(name)]
+    if not matches:
         raise InputError("test profile", name, "one of " + ", ".join(CYCLING_PRESETS))
-    return CYCLING_PRESETS[key].with_timing(dwell, cycles_per_day)
+    return matches[0].with_timing(dwell, cycles_per_day)
 
 
 # --------------------------------------------------------------------------------- Norris-Landzberg
@@ -510,6 +513,10 @@ def check_solder_joint(
     nl_set = af = test_life = None
     if test is not None:
         test = preset_cycle(test) if isinstance(test, str) else test
+        if not isinstance(test, CycleProfile):
+            raise InputError("test", test, "a CycleProfile or a preset name such as '-40/+125'")
+        warnings += [f"test cycle, {text}" for text in _material_warnings("component", component, test)
+                     + _material_warnings("board", board, test)]
         nl_set = _nl_set(acceleration_set)
         af = norris_landzberg_factor(test, cycle, nl_set)
         test_gamma = float(global_shear_strain(

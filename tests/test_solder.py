@@ -153,6 +153,7 @@ def test_presets_named_by_range():
         assert (preset.low - C0, preset.high - C0) == pytest.approx((low, high))
         assert "memory" in preset.note or "not verified" in preset.note
     assert solder.preset_cycle("-40/+125 degC", dwell=600).dwell == 600
+    assert solder.preset_cycle("0/100") == solder.preset_cycle("0/+100")
     with pytest.raises(InputError, match="test profile"):
         solder.preset_cycle("-40/+126")
 
