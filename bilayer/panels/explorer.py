@@ -1,0 +1,81 @@
+"""The stack explorer: the stack editor, unit switch and design files above tabs of live views.
+
+Only the view on the selected tab redraws on a change; the others redraw when their tab opens.
+"""
+from __future__ import annotations
+
+import ipywidgets as widgets
+
+from ..stack import Design, Layer, Stack, Temperatures
+from ._base import DesignModel
+from .design_files import DesignFilePanel
+from .interface_views import InterfaceView, RatioTradeoffView
+from .stack_editor import StackEditor
+from .views import ResultTable, ShapeView, SignConventionSketch, StressView, UnitSystemSwitch
+
+__all__ = ["StackExplorer", "example_design"]
+
+
+def example_design() -> Design:
+    """An invented starting point: a two-layer strip for an oven-door switch, bonded at 20 degC,
+    looked at 100 K hotter (demo data, not a reference)."""
+    return Design(
+        stack=Stack((Layer("fe36ni", 0.5e-3, "low-expansion side"), Layer("mncuni_72_18_10", 0.5e-3, "high-expansion side"))),
+        temperatures=Temperatures(293.15, 393.15),
+        state="narrow",
+        name="oven-door switch strip (demo)",
+    )
+
+
+class StackExplorer(widgets.VBox):
+    """Edit a stack and watch its response.
+
+    Parts (attributes): ``model`` (the current design and result), ``editor``, ``units``,
+    ``files``, ``table``, and the views ``stress``, ``shape``, ``interface``, ``tradeoff`` and
+    ``sketch`` in ``tabs``; job panels added with :meth:`add_view` appear as further tabs.
+    """
+
+    def __init__(self, design: Design | None = None, system: str = "si", path: str = "my_design.toml"):
+        self.model = DesignModel(design if design is not None else example_design(), system)
+        self.editor = StackEditor(self.model)
+        self.units = UnitSystemSwitch(self.model)
+        self.files = DesignFilePanel(self.model, path, pending_error=self.editor.pending_error)
+        self.table = ResultTable(self.model)
+        self.stress = StressView(self.model)
+        self.shape = ShapeView(self.model, active=False)
+        self.interface = InterfaceView(self.model, active=False)
+        self.tradeoff = RatioTradeoffView(self.model, active=False)
+        self.sketch = SignConventionSketch()
+        self.tabs = widgets.Tab()
+        self._views: list[tuple[str, widgets.Widget]] = []
+        for title, view in (("stress", self.stress), ("shape", self.shape), ("interface", self.interface),
+                            ("thickness ratio", self.tradeoff), ("conventions", self.sketch)):
+            self.add_view(title, view)
+        self.tabs.observe(self._tab_changed, names="selected_index")
+        self.tabs.selected_index = 0
+        self._tab_changed()
+        super().__init__([
+            widgets.HBox([self.units]),
+            self.editor,
+            self.files,
+            self.tabs,
+            self.table,
+        ])
+
+    def add_view(self, title: str, view: widgets.Widget) -> None:
+        """Add a view as a tab; views with an ``active`` flag redraw only while their tab is open."""
+        self._views.append((title, view))
+        self.tabs.children = [v for _, v in self._views]
+        for i, (name, _) in enumerate(self._views):
+            self.tabs.set_title(i, name)
+        self._tab_changed()
+
+    def _tab_changed(self, change=None) -> None:
+        selected = self.tabs.selected_index
+        for i, (_, view) in enumerate(self._views):
+            if hasattr(view, "active"):
+                view.active = i == selected
+
+    def show(self, title: str) -> None:
+        """Open the tab called ``title``."""
+        self.tabs.selected_index = [name for name, _ in self._views].index(title)

@@ -1,0 +1,234 @@
+"""Views along the strip: interface shear and peel near the free ends, and the trade-off between
+curvature and peak interface shear over the thickness ratio.
+
+Both call the interface model (:mod:`bilayer.interface`) for the current design, the shared strip
+length and the bond layers chosen here.
+"""
+from __future__ import annotations
+
+from dataclasses import replace
+from html import escape
+
+import ipywidgets as widgets
+import numpy as np
+
+from .. import plots
+from ..errors import BilayerError
+from ..stack import Stack
+from ._base import DesignModel, FigureImage, View, message_html
+from .views import StripLengthField, _fmt
+
+__all__ = ["InterfaceView", "RatioTradeoffView", "thickness_ratio_sweep", "interface_short_names"]
+
+
+def interface_short_names(stack: Stack, result) -> list[str]:
+    """Short names "layers 1-2" or "layers 1-3, bond 2" for the interfaces of an interface result."""
+    names = []
+    for profile in result.interfaces:
+        p = profile.parameters
+        name = f"layers {p.below[-1] + 1}–{p.above[0] + 1}"
+        if p.bond is not None:
+            name += f" (bond {p.bond + 1})"
+        names.append(name)
+    return names
+
+
+class BondChooser(widgets.SelectMultiple):
+    """Pick which inner layers are bond layers (adhesive, solder, die attach: shear only)."""
+
+    def __init__(self, model: DesignModel):
+        super().__init__(description="bond layers", rows=3, style={"description_width": "initial"},
+                         layout=widgets.Layout(width="22em"),
+                         tooltip="inner layers that carry shear only across their interface (ctrl-click for several)")
+        self.model = model
+        self._syncing = False
+        self._sync()
+        self.observe(self._chosen, names="value")
+        model.observe(lambda change: self._sync(), names=["design", "bonds"])
+
+    def _sync(self) -> None:
+        stack = self.model.design.stack
+        options = tuple((f"{i + 1}: {stack.labels[i]}", i) for i in range(1, stack.n_layers - 1))
+        chosen = tuple(i for i in self.model.bonds if 0 < i < stack.n_layers - 1)
+        self._syncing = True
+        try:
+            if tuple(self.options) != options:
+                self.options = options
+            if tuple(self.value) != chosen:
+                self.value = chosen
+        finally:
+            self._syncing = False
+
+    def _chosen(self, change) -> None:
+        if not self._syncing and tuple(change["new"]) != tuple(self.model.bonds):
+            self.model.bonds = tuple(change["new"])
+
+
+class InterfaceView(View):
+    """Interface shear (solid) and peel (dashed) from mid-length to a free end, with their maxima."""
+
+    watches = ("result", "system", "strip_length", "bonds")
+    margins = {"left": 0.12, "right": 0.97, "bottom": 0.14, "top": 0.9}
+
+    def __init__(self, model: DesignModel, active: bool = True):
+        self.message = widgets.HTML()
+        self.length = StripLengthField(model, self.message)
+        self.bonds = BondChooser(model)
+        self.bending = widgets.Dropdown(
+            options=(("with bending (Suhir-type)", "bending"), ("no bending (Chen & Nelson)", "no_bending")),
+            value="bending", description="model", style={"description_width": "initial"},
+        )
+        self.image = FigureImage(3.4, self.margins)
+        self.ax = self.image.figure.add_subplot()
+        self.table = widgets.HTML()
+        self.result = None
+        super().__init__(model, [widgets.HBox([self.length.field.text, self.bending]), self.bonds, self.image,
+                                 self.message, self.table], active=active)
+        self.bending.observe(lambda change: self.redraw(), names="value")
+        self._on_model()
+
+    def compute(self):
+        """The interface model for the current design (one core call)."""
+        from ..interface import interface_stresses
+
+        design = self.model.design
+        return interface_stresses(design.stack, design.temperatures, self.model.strip_length, design.state,
+                                  bonds=self.model.bonds, model=self.bending.value)
+
+    def draw(self) -> None:
+        stack = self.model.design.stack
+        if stack.n_layers < 2:
+            self.result = None
+            self.message.value = message_html("A single layer has no interface.", "note")
+            return
+        try:
+            result = self.compute()
+        except BilayerError as error:
+            self.message.value = message_html(f"{error}. The figure shows the last valid case.")
+            return
+        self.result = result
+        params = [p.parameters for p in result.interfaces]
+        scale = max(max(p.decay_length, p.peel_decay_length if p.bending else 0.0) for p in params)
+        zone = min(result.half_length, 10.0 * scale)
+        self.distance = zone * np.linspace(0.0, 1.0, 301) ** 1.5
+        sampled = result.sample(self.distance, end="right")
+        names = interface_short_names(stack, result)
+        shear = {name: s[1] for name, s in zip(names, sampled)}
+        peel = {name: s[2] for name, s in zip(names, sampled) if s[2] is not None}
+        system = self.model.system
+        plots.interface_stresses(
+            self.distance, shear, peel, system, ax=self.ax,
+            title=f"Interface stresses near the right-hand free end ({result.state.value} state, "
+                  f"strip {_fmt(result.length, 'length', system)})",
+            note="within about one thickness of the end: nominal model values",
+            decay_length=min(p.decay_length for p in params),
+        )
+        self.image.refresh()
+        rows = []
+        for name, p in zip(names, result.interfaces):
+            peel_text = ("–" if not np.isfinite(p.max_peel) else
+                         f"{_fmt(p.max_peel, 'stress', system)} at {_fmt(p.max_peel_distance, 'length', system)}")
+            end_peel = "–" if not np.isfinite(p.end_peel) else _fmt(p.end_peel, "stress", system)
+            rows.append(f"<tr><td>{escape(name)}</td><td>{_fmt(p.max_shear, 'stress', system)}</td>"
+                        f"<td>{peel_text}</td><td>{end_peel}</td><td>{_fmt(p.decay_length, 'length', system)}</td></tr>")
+        warnings = "".join(f"<li>{escape(w)}</li>" for w in result.warnings)
+        self.table.value = (
+            "<table style='font-size:0.9em'><tr><th>interface</th><th>shear at the end</th>"
+            "<th>largest tensile peel (from the end)</th><th>peel at the end</th><th>decay length 1/k</th></tr>"
+            + "".join(rows) + "</table>"
+            + (f"<ul style='color:#8a5a00;font-size:0.85em'>{warnings}</ul>" if warnings else "")
+        )
+        self.message.value = ""
+
+
+def thickness_ratio_sweep(design, length: float, bonds=(), ratios=None, points: int = 41):
+    """Curvature and peak interface shear when the thickness ratio of the parts below and above the
+    first interface changes at fixed total thickness.
+
+    The part below is the bottom layer (or the layers under the first bond); every layer of a part
+    is scaled by the same factor and a bond keeps its thickness. Returns (ratios, curvature [1/m],
+    peak |shear| over all interfaces [Pa], current ratio). Each point is one engine evaluation and one
+    interface-model evaluation.
+    """
+    from ..interface import interface_parameters, resolve_bonds
+
+    stack = design.stack
+    bond_set = resolve_bonds(stack, bonds)
+    first_bond = 1 if 1 in bond_set else None
+    below = [0]
+    above = [i for i in range(1, stack.n_layers) if i != first_bond]
+    t = stack.thicknesses
+    t_below, t_above = t[below].sum(), t[above].sum()
+    current = t_below / t_above
+    if ratios is None:
+        ratios = current * np.logspace(-1.2, 1.2, points)
+    ratios = np.asarray(ratios, float)
+    total = t_below + t_above
+    curvature = np.empty(ratios.size)
+    peak = np.empty(ratios.size)
+    for k, r in enumerate(ratios):
+        new_below, new_above = total * r / (1 + r), total / (1 + r)
+        thickness = t.copy()
+        thickness[below] *= new_below / t_below
+        thickness[above] *= new_above / t_above
+        swept = Stack(tuple(replace(layer, thickness=float(h)) for layer, h in zip(stack.layers, thickness)))
+        curvature[k] = float(design.replace(stack=swept).evaluate().curvature)
+        params = interface_parameters(swept, design.temperatures, design.state, bonds=bond_set)
+        half = 0.5 * length
+        peak[k] = max(abs(float(p.force_and_shear(np.array([half]), half)[1][0])) for p in params)
+    return ratios, curvature, peak, current
+
+
+class RatioTradeoffView(View):
+    """Curvature and peak interface shear over the thickness ratio, with the current design marked."""
+
+    watches = ("result", "system", "strip_length", "bonds")
+    margins = {"left": 0.12, "right": 0.87, "bottom": 0.15, "top": 0.9}
+
+    def __init__(self, model: DesignModel, active: bool = True):
+        self.message = widgets.HTML()
+        self.image = FigureImage(3.4, self.margins)
+        self.ax = self.image.figure.add_subplot()
+        self.sweep = None
+        super().__init__(model, [widgets.HTML(
+            "<span style='color:#555;font-size:0.9em'>Total thickness fixed; the part below the first interface "
+            "against the part above (a bond keeps its thickness). Strip length and bonds as on the interface tab.</span>"),
+            self.image, self.message], active=active)
+        self._on_model()
+
+    def draw(self) -> None:
+        design = self.model.design
+        if design.stack.n_layers < 2:
+            self.message.value = message_html("A single layer has no thickness ratio.", "note")
+            return
+        try:
+            ratios, curvature, peak, current = thickness_ratio_sweep(design, self.model.strip_length, self.model.bonds)
+            from ..interface import interface_parameters
+
+            half = 0.5 * self.model.strip_length
+            params = interface_parameters(design.stack, design.temperatures, design.state, bonds=self.model.bonds)
+            current_peak = max(abs(float(p.force_and_shear(np.array([half]), half)[1][0])) for p in params)
+        except BilayerError as error:
+            self.message.value = message_html(f"{error}. The figure shows the last valid case.")
+            return
+        self.sweep = (ratios, curvature, peak)
+        best = _peak_ratio(ratios, np.abs(curvature))
+        plots.thickness_ratio_tradeoff(
+            ratios, curvature, peak, current, float(self.model.result.curvature), current_peak,
+            self.model.system, ax=self.ax, best_ratio=best,
+            ratio_label="thickness ratio, part below / part above the first interface",
+        )
+        self.image.refresh()
+        self.message.value = ""
+
+
+def _peak_ratio(ratios: np.ndarray, values: np.ndarray) -> float | None:
+    """Ratio of the largest value, refined by a parabola through the best sample and its neighbours
+    (in log ratio); None when the largest value sits at the end of the sweep."""
+    i = int(np.argmax(values))
+    if i == 0 or i == len(values) - 1:
+        return None
+    x = np.log(ratios[i - 1:i + 2])
+    y = values[i - 1:i + 2]
+    a, b, _ = np.polyfit(x, y, 2)
+    return float(np.exp(-b / (2 * a))) if a < 0 else float(ratios[i])
