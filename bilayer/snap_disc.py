@@ -81,7 +81,7 @@ class SnapDisc:
         a4 = self.radius**4
         if isinstance(strip, DatasheetStrip):
             return (1.0 - strip.poisson_ratio) * a4 / (16.0 * strip.thickness**2)
-        Y, _, _, nu = strip._elastic
+        Y, _, _, nu = strip.elastic_constants
         t = strip.stack.thicknesses
         section = laminate.solve(Y, t, np.zeros_like(Y))
         biaxial = float(section.axial_rigidity)

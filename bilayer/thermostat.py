@@ -21,7 +21,7 @@ Every result carries warnings, assumptions and the thermostat cautions (:data:`T
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass
 from typing import Union
 
 import numpy as np

@@ -73,12 +73,12 @@ def optimum_thickness_ratio(
     state = BendingState.parse(state)
     probe = Stack.of((bottom, 0.5 * total_thickness), (top, 0.5 * total_thickness))
     strip = ThermostatStrip(probe, 1e-3, temperature_low, state=state)
-    Y = strip._elastic[0]
+    Y = strip.elastic_constants[0]
     ratio = float(_ratio_function()(Y[0] / Y[1]))
     t_top = total_thickness / (1.0 + ratio)
     best = strip.with_stack(Stack.of((probe[0].material, ratio * t_top), (probe[1].material, t_top)))
     flex = best.flexivity(temperature_low, temperature_high).per_kelvin
-    factor = best._elastic[1]
+    factor = best.elastic_constants[1]
     strains = [layer.material.cte.thermal_strain(temperature_low, temperature_high) for layer in best.stack]
     difference = float((factor[1] * strains[1] - factor[0] * strains[0]) / (temperature_high - temperature_low))
     return OptimumRatio(ratio, probe[0].material.name, probe[1].material.name, state.value, flex, difference,
@@ -238,7 +238,7 @@ def rank_pairs(
 def _rate(low, high, ratio_of, t_low, t_high, factor, limit_stress, state) -> PairRating:
     total = 1e-3
     probe = ThermostatStrip(Stack.of((low, 0.5e-3), (high, 0.5e-3)), 1e-3, t_low, state=state)
-    Y = probe._elastic[0]
+    Y = probe.elastic_constants[0]
     ratio = float(ratio_of(Y[0] / Y[1]))
     t_top = total / (1.0 + ratio)
     strip = probe.with_stack(Stack((Layer(low, ratio * t_top), Layer(high, t_top))))

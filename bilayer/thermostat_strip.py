@@ -135,7 +135,8 @@ class ThermostatStrip:
 
     # --- section properties (engine kernel) -----------------------------------------------------------
     @cached_property
-    def _elastic(self):
+    def elastic_constants(self) -> tuple[np.ndarray, np.ndarray, np.ndarray, np.ndarray]:
+        """(Y, free-strain factor, E, nu) per layer for the bending state (laminate.effective_properties)."""
         materials = [layer.material for layer in self.stack.layers]
         E = np.array([m.youngs_modulus for m in materials])
         nu = np.array([m.poisson_ratio for m in materials])
@@ -149,7 +150,7 @@ class ThermostatStrip:
 
     @cached_property
     def _section(self) -> laminate.LaminateSolution:
-        Y, _, _, _ = self._elastic
+        Y, _, _, _ = self.elastic_constants
         return laminate.solve(Y, self.stack.thicknesses, np.zeros_like(Y))
 
     @property
@@ -170,14 +171,14 @@ class ThermostatStrip:
     @cached_property
     def plate_rigidity(self) -> float:
         """Cylindrical-bending plate rigidity D_p per unit width [N m] (engine, wide-strip moduli)."""
-        _, _, E, nu = self._elastic
+        _, _, E, nu = self.elastic_constants
         Y, _ = laminate.effective_properties(E, nu, np.zeros_like(E), "wide")
         return float(laminate.solve(Y, self.stack.thicknesses, np.zeros_like(E)).flexural_rigidity)
 
     @property
     def mean_poisson_ratio(self) -> float:
         """Poisson's ratio averaged with weights Y_i t_i (an estimate used for discs)."""
-        Y, _, _, nu = self._elastic
+        Y, _, _, nu = self.elastic_constants
         weights = Y * self.stack.thicknesses
         return float(np.sum(weights * nu) / np.sum(weights))
 
@@ -185,14 +186,14 @@ class ThermostatStrip:
     def free_strains(self, temperature) -> np.ndarray:
         """Free strains f_i of the bending state at ``temperature`` [K], shape (..., n)."""
         T = _temperature_array("temperature", temperature)
-        _, factor, _, _ = self._elastic
+        _, factor, _, _ = self.elastic_constants
         eps = [np.asarray(layer.material.cte.thermal_strain(self.stress_free_temperature, T), float)
                for layer in self.stack.layers]
         return np.stack(eps, axis=-1) * factor
 
     def solve(self, temperature, bending_moment=0.0) -> laminate.LaminateSolution:
         """The engine kernel at ``temperature`` with an extra moment per width [N] (broadcasts)."""
-        Y, _, _, _ = self._elastic
+        Y, _, _, _ = self.elastic_constants
         return laminate.solve(Y, self.stack.thicknesses, self.free_strains(temperature), 0.0, bending_moment)
 
     def curvature(self, temperature):
@@ -206,7 +207,7 @@ class ThermostatStrip:
     def curvature_rate(self, temperature):
         """d kappa / dT [1/(m K)] at ``temperature`` from the layers' instantaneous alpha(T)."""
         T = _temperature_array("temperature", temperature)
-        Y, factor, _, _ = self._elastic
+        Y, factor, _, _ = self.elastic_constants
         alpha = np.stack([np.asarray(layer.material.cte.instantaneous(T), float) for layer in self.stack.layers], axis=-1)
         return _plain(laminate.solve(Y, self.stack.thicknesses, alpha * factor).curvature)
 

@@ -187,7 +187,7 @@ class _Problem:
 
 def _strain_weights(strip: ThermostatStrip, thickness_scale: np.ndarray, modulus_scale: np.ndarray) -> np.ndarray:
     """Curvature per unit free strain of each layer, g_i [1/m], shape (n, samples), from the engine kernels."""
-    Y0, _, _, _ = strip._elastic
+    Y0, _, _, _ = strip.elastic_constants
     n = strip.n_layers
     Y = Y0[:, None] * modulus_scale
     t = strip.stack.thicknesses[:, None] * thickness_scale
@@ -205,7 +205,7 @@ def _strain_weights(strip: ThermostatStrip, thickness_scale: np.ndarray, modulus
 def _solve_temperature(strip: ThermostatStrip, weights: np.ndarray, cte_scale: np.ndarray,
                        target: np.ndarray, start: np.ndarray) -> np.ndarray:
     """Newton on T: sum_i w_i s_i c_i (eps_i(T_ref -> T)) = target, per sample (eps from the CTE models)."""
-    _, factor, _, _ = strip._elastic
+    _, factor, _, _ = strip.elastic_constants
     w = weights * cte_scale * factor[:, None]
     models = [layer.material.cte for layer in strip.stack.layers]
     t_ref = strip.reference_temperature
@@ -221,7 +221,7 @@ def _solve_temperature(strip: ThermostatStrip, weights: np.ndarray, cte_scale: n
     return T
 
 
-def _scales(tolerances: dict, draws: dict, key: str, size: int) -> np.ndarray:
+def _scales(draws: dict, key: str, size: int) -> np.ndarray:
     return 1.0 + draws[key] if key in draws else np.ones(size)
 
 
@@ -238,14 +238,14 @@ def _chunk_set_points(problem: _Problem, tolerances: dict, draws: dict, size: in
     else:
         gap = problem.gap * (1.0 + draws["gap"]) if gap_tol.relative else problem.gap + draws["gap"]
     required = problem.required_curvature(length_scale, gap)
-    common = _scales(tolerances, draws, "thickness", size)
+    common = _scales(draws, "thickness", size)
     if isinstance(strip, DatasheetStrip):
-        flex = strip.flexivity.per_kelvin * _scales(tolerances, draws, "flexivity", size)
+        flex = strip.flexivity.per_kelvin * _scales(draws, "flexivity", size)
         return problem.t_ref + required * strip.thickness * common / flex
     n = strip.n_layers
-    thickness = np.stack([common * _scales(tolerances, draws, f"thickness_{i}", size) for i in range(1, n + 1)])
-    modulus = np.stack([_scales(tolerances, draws, f"modulus_{i}", size) for i in range(1, n + 1)])
-    cte = np.stack([_scales(tolerances, draws, f"cte_{i}", size) for i in range(1, n + 1)])
+    thickness = np.stack([common * _scales(draws, f"thickness_{i}", size) for i in range(1, n + 1)])
+    modulus = np.stack([_scales(draws, f"modulus_{i}", size) for i in range(1, n + 1)])
+    cte = np.stack([_scales(draws, f"cte_{i}", size) for i in range(1, n + 1)])
     weights = _strain_weights(strip, thickness, modulus)
     rate = float(strip.curvature_rate(problem.set_point.temperature))
     nominal_required = float(strip.curvature_change(problem.set_point.temperature))
@@ -328,7 +328,7 @@ def _curvature_gradient(strip: ThermostatStrip, temperature: float) -> tuple[np.
     from .symbolic import evaluate_sensitivities
 
     n = strip.n_layers
-    Y, factor, _, _ = strip._elastic
+    Y, factor, _, _ = strip.elastic_constants
     t = strip.stack.thicknesses
     gradient = np.zeros(3 * n)
     for T, weight in ((temperature, 1.0), (strip.reference_temperature, -1.0)):

@@ -8,15 +8,14 @@ from __future__ import annotations
 
 import math
 
-import numpy as np
 import pytest
 from scipy.optimize import minimize_scalar
 
 import bilayer as bl
 from bilayer.errors import InputError
 from bilayer.snap_disc import SNAP_DISC_LIMITS, SnapDisc, equilibrium_thermal_curvature, snap_temperatures
-from bilayer.thermostat import ThermalElement, closing_temperature, contact_load
-from bilayer.thermostat_design import optimum_thickness_ratio, rank_pairs, size_element
+from bilayer.thermostat import closing_temperature, contact_load
+from bilayer.thermostat_design import rank_pairs, size_element
 from bilayer.thermostat_elements import Cantilever
 from bilayer.thermostat_strip import DatasheetStrip, Flexivity, ThermostatStrip
 
