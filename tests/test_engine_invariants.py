@@ -40,6 +40,11 @@ def stress_scale(stack, dT):
     return E * 1.5 * max(abs(l.material.alpha) for l in stack) * abs(dT) + 1e-6
 
 
+def curvature_scale(stack, dT):
+    """Largest curvature the thermal load could produce, ~ max |f| / H: the scale for round-off."""
+    return 1.5 * max(abs(l.material.alpha) for l in stack) * abs(dT) / stack.total_thickness + 1e-300
+
+
 def _resultants(result):
     """Force and moment (about the bending axis) of the stress field, exact for linear stress per layer."""
     t = result.thicknesses
@@ -68,7 +73,7 @@ def test_force_and_moment_balance(stack, dT, state, N, M):
 def test_reversing_the_layer_order_flips_the_curvature(stack, dT, state):
     temps = bl.Temperatures(400.0, 400.0 + dT)
     r, f = bl.evaluate(stack, temps, state), bl.evaluate(stack.reversed(), temps, state)
-    assert f.curvature == pytest.approx(-r.curvature, rel=1e-9, abs=1e-12 * abs(r.curvature) + 1e-300)
+    assert f.curvature == pytest.approx(-r.curvature, rel=1e-9, abs=1e-12 * curvature_scale(stack, dT))
     assert f.axial_strain == pytest.approx(r.axial_strain, rel=1e-9, abs=1e-18)
     assert f.bending_axis == pytest.approx(r.total_thickness - r.bending_axis, rel=1e-9)
     scale = stress_scale(stack, dT)
@@ -125,7 +130,7 @@ def test_linear_in_temperature_change(stack, dT, factor, state):
     a = bl.evaluate(stack, bl.Temperatures(400.0, 400.0 + dT), state)
     b = bl.evaluate(stack, bl.Temperatures(1500.0, 1500.0 + factor * dT), state)
     assert b.curvature == pytest.approx(factor * a.curvature, rel=1e-9,
-                                        abs=1e-12 * factor * abs(a.curvature) + 1e-300)
+                                        abs=1e-12 * factor * curvature_scale(stack, dT))
     np.testing.assert_allclose(b.stress_top, factor * a.stress_top, rtol=1e-9,
                                atol=1e-9 * factor * stress_scale(stack, dT))
 
@@ -136,7 +141,7 @@ def test_scaling_all_thicknesses_scales_curvature_inversely(stack, dT, s, state)
     scaled = bl.Stack.of(*[(l.material, l.thickness * s) for l in stack])
     temps = bl.Temperatures(400.0, 400.0 + dT)
     a, b = bl.evaluate(stack, temps, state), bl.evaluate(scaled, temps, state)
-    assert b.curvature == pytest.approx(a.curvature / s, rel=1e-9, abs=1e-300)
+    assert b.curvature == pytest.approx(a.curvature / s, rel=1e-9, abs=1e-12 * curvature_scale(stack, dT) / s)
     np.testing.assert_allclose(b.stress_top, a.stress_top, rtol=1e-8, atol=1e-9 * stress_scale(stack, dT))
 
 
@@ -147,6 +152,7 @@ def test_vectorised_temperatures_equal_one_by_one(stack, state):
     many = bl.evaluate(stack, bl.Temperatures(320.0, temps), state)
     for k, T in enumerate(temps):
         one = bl.evaluate(stack, bl.Temperatures(320.0, T), state)
-        assert many.curvature[k] == pytest.approx(one.curvature, rel=1e-12, abs=1e-300)
+        assert many.curvature[k] == pytest.approx(one.curvature, rel=1e-12,
+                                                  abs=1e-12 * curvature_scale(stack, 250.0))
         np.testing.assert_allclose(many.stress_top[k], one.stress_top, rtol=1e-12,
                                    atol=1e-12 * stress_scale(stack, 250.0))
