@@ -93,7 +93,11 @@ class _LineIndex:
                 self._lines.setdefault((table, key.group(1).strip("\"'")), number)
 
     def __call__(self, table: str, key: str) -> int | None:
-        return self._lines.get((table, key)) or self._lines.get((table, ""))
+        found = self._lines.get((table, key)) or self._lines.get((table, ""))
+        if found is None and "." in table:  # a table written as a key of its parent: [materials] alloy = {...}
+            parent, _, name = table.rpartition(".")
+            found = self._lines.get((parent, name))
+        return found
 
 
 # --- reading --------------------------------------------------------------------------------------
@@ -320,31 +324,37 @@ def design_to_text(design: Any, results: Any = None, system: str = "si", library
 
 
 def _material_ids(design: Any, library: Any) -> dict[int, tuple[str, Any]]:
-    """id(material) -> (reference written in [[layer]], material or None for a library entry)."""
+    """id(material) -> (reference written in [[layer]], material or None for a library entry).
+
+    Custom materials get ids that match no library key or name and no other id (lookups ignore
+    case and punctuation), so every reference reads back to the same material.
+    """
     from .materials import default_library
+    from .materials.library import normalize_name
 
     library = library if library is not None else default_library()
     ids: dict[int, tuple[str, Any]] = {}
-    taken: dict[str, Any] = {}
+    custom: list[tuple[str, Any]] = []
+    taken: set[str] = set()
     for layer in design.stack:
         material = layer.material
         if id(material) in ids:
             continue
-        match = next((m_id for m_id, other in taken.items() if other is not None and other == material), None)
-        if match is not None:
-            ids[id(material)] = (match, None)
-            continue
-        if material.key and library.get(material.key) == material:
+        same = next((m_id for m_id, other in custom if other == material), None)
+        if same is not None:
+            ids[id(material)] = (same, None)
+        elif material.key and library.get(material.key) == material:
             ids[id(material)] = (material.key, None)
-            continue
-        base = material.key if material.key and _BARE_KEY.fullmatch(material.key) else (
-            re.sub(r"[^0-9a-z]+", "_", material.name.casefold()).strip("_") or "material")
-        material_id, counter = base, 1
-        while material_id in taken or (library.get(material_id) is not None and material_id != material.key):
-            counter += 1
-            material_id = f"{base}_{counter}"
-        taken[material_id] = material
-        ids[id(material)] = (material_id, material)
+        else:
+            base = material.key if material.key and _BARE_KEY.fullmatch(material.key) else (
+                re.sub(r"[^0-9a-z]+", "_", material.name.casefold()).strip("_") or "material")
+            material_id, counter = base, 1
+            while normalize_name(material_id) in taken or library.get(material_id) is not None:
+                counter += 1
+                material_id = f"{base}_{counter}"
+            taken.add(normalize_name(material_id))
+            custom.append((material_id, material))
+            ids[id(material)] = (material_id, material)
     return ids
 
 

@@ -40,7 +40,7 @@ class Location:
     line_of: Callable[[str], int | None] = field(default=lambda key: None, compare=False, repr=False)
 
     def field(self, key: str) -> str:
-        line = self.line_of(key) if key else None
+        line = self.line_of(key)
         where = f"{self.source}, line {line}" if line else self.source
         table = f" {self.table}" if self.table else ""
         return f"{where}{table}: {key}" if key else f"{where}{table}"
