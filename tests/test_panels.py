@@ -235,7 +235,6 @@ def test_unit_switch_leaves_an_invalid_entry_as_typed(explorer):
 
 
 def test_save_and_load_round_trip(explorer, tmp_path):
-    pytest.importorskip("bilayer.design_file", reason="design files arrive with the engine issue")
     path = tmp_path / "strip.toml"
     explorer.files.path.value = str(path)
     explorer.editor.operating.text.value = "77 degC"
@@ -261,7 +260,6 @@ def test_save_refused_while_an_entry_is_invalid(explorer, tmp_path):
 
 
 def test_loading_a_broken_file_changes_nothing(explorer, tmp_path):
-    pytest.importorskip("bilayer.design_file", reason="design files arrive with the engine issue")
     path = tmp_path / "broken.toml"
     path.write_text("[stack\nthis is not toml")
     explorer.files.path.value = str(path)

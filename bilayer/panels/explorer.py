@@ -13,7 +13,19 @@ from .interface_views import InterfaceView, RatioTradeoffView
 from .stack_editor import StackEditor
 from .views import ResultTable, ShapeView, SignConventionSketch, StressView, UnitSystemSwitch
 
-__all__ = ["StackExplorer", "example_design"]
+__all__ = ["StackExplorer", "example_design", "JOB_PANELS"]
+
+
+def _thermostat():
+    from .thermostat_panel import ThermostatPanel
+
+    return ThermostatPanel
+
+
+JOB_PANELS = {
+    "thermostat": ("thermostat", _thermostat),
+}
+"""Job panels by design-file section name: (tab title, factory returning the panel class)."""
 
 
 def example_design() -> Design:
@@ -35,7 +47,8 @@ class StackExplorer(widgets.VBox):
     ``sketch`` in ``tabs``; job panels added with :meth:`add_view` appear as further tabs.
     """
 
-    def __init__(self, design: Design | None = None, system: str = "si", path: str = "my_design.toml"):
+    def __init__(self, design: Design | None = None, system: str = "si", path: str = "my_design.toml",
+                 jobs: tuple[str, ...] = ()):
         self.model = DesignModel(design if design is not None else example_design(), system)
         self.editor = StackEditor(self.model)
         self.units = UnitSystemSwitch(self.model)
@@ -51,6 +64,9 @@ class StackExplorer(widgets.VBox):
         for title, view in (("stress", self.stress), ("shape", self.shape), ("interface", self.interface),
                             ("thickness ratio", self.tradeoff), ("conventions", self.sketch)):
             self.add_view(title, view)
+        self.jobs = {}
+        for job in dict.fromkeys((*jobs, *(name for name in JOB_PANELS if name in self.model.design.sections))):
+            self.add_job(job)
         self.tabs.observe(self._tab_changed, names="selected_index")
         self.tabs.selected_index = 0
         self._tab_changed()
@@ -61,6 +77,18 @@ class StackExplorer(widgets.VBox):
             self.tabs,
             self.table,
         ])
+
+    def add_job(self, job: str) -> widgets.Widget:
+        """Add the panel of a job ("thermostat", ...) as a tab sharing this explorer's design."""
+        if job not in JOB_PANELS:
+            from ..errors import InputError
+
+            raise InputError("job", job, "one of " + ", ".join(JOB_PANELS))
+        if job not in self.jobs:
+            title, factory = JOB_PANELS[job]
+            self.jobs[job] = factory()(self.model, active=False)
+            self.add_view(title, self.jobs[job])
+        return self.jobs[job]
 
     def add_view(self, title: str, view: widgets.Widget) -> None:
         """Add a view as a tab; views with an ``active`` flag redraw only while their tab is open."""
