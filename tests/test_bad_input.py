@@ -9,7 +9,6 @@ from __future__ import annotations
 
 import math
 import warnings
-from importlib import resources
 
 import pytest
 from hypothesis import HealthCheck, given, settings

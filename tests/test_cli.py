@@ -150,3 +150,15 @@ def test_help_lists_exit_codes_in_a_subprocess():
     done = subprocess.run([sys.executable, "-m", "bilayer.cli", "evaluate", str(EXAMPLES["oxide_on_wafer"]), "--json"],
                           capture_output=True, text=True)
     assert done.returncode == 0 and json.loads(done.stdout)["bending_state"] == "plate"
+
+
+def test_suspicious_input_is_a_one_line_warning(capsys, tmp_path):
+    """A legal but suspicious value (nu > 0.49) still evaluates, with one warning line on stderr."""
+    text = EXAMPLES["bonded_window"].read_text().replace("poisson_ratio = 0.38", "poisson_ratio = 0.495")
+    path = tmp_path / "soft.toml"
+    path.write_text(text)
+    code, out, err = run(capsys, "evaluate", str(path), "--json")
+    assert code == 0 and json.loads(out)["bending_state"] == "wide"
+    lines = [line for line in err.splitlines() if line]
+    assert lines and all(line.startswith("bilayer: warning:") for line in lines)
+    assert any("poisson_ratio" in line for line in lines)

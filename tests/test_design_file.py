@@ -17,7 +17,7 @@ import pytest
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from bilayer import Design, Layer, Stack, Temperatures
+from bilayer import Design, Stack, Temperatures
 from bilayer.design_file import (
     FORMAT_VERSION,
     design_to_text,
