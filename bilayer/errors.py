@@ -108,6 +108,10 @@ def check_range(
     return value
 
 
-def warn_suspicious(field: str, value: object, reason: str) -> None:
-    """Issue a :class:`SuspiciousInputWarning` naming the field and the reason."""
-    warnings.warn(f"{field}: {value!r} looks suspicious: {reason}", SuspiciousInputWarning, stacklevel=3)
+def warn_suspicious(field: str, value: object, reason: str, stacklevel: int = 3) -> None:
+    """Issue a :class:`SuspiciousInputWarning` naming the field and the reason.
+
+    ``stacklevel`` counts frames from this function (as for :func:`warnings.warn`); pass the depth
+    of the user's call so the warning points at the line that gave the value.
+    """
+    warnings.warn(f"{field}: {value!r} looks suspicious: {reason}", SuspiciousInputWarning, stacklevel=stacklevel)

@@ -140,28 +140,28 @@ class Material:
         modulus, nu, alpha = self.youngs_modulus, self.poisson_ratio, self.alpha
         if modulus < _E_WARN_LOW:
             warn_suspicious("youngs_modulus", modulus,
-                            f"{label}: below 1 MPa (soft gels exist, but GPa or MPa typed as Pa is more likely)")
+                            f"{label}: below 1 MPa (soft gels exist, but GPa or MPa typed as Pa is more likely)", stacklevel=5)
         elif modulus > _E_WARN_HIGH:
             warn_suspicious("youngs_modulus", modulus,
-                            f"{label}: above 500 GPa, stiffer than all but diamond and a few carbides and metals")
+                            f"{label}: above 500 GPa, stiffer than all but diamond and a few carbides and metals", stacklevel=5)
         metal_like = (self.density is not None and self.density >= 2500.0) or abs(alpha) < 5e-5
         if _PSI_BAND[0] <= modulus < _PSI_BAND[1] and metal_like:
             warn_suspicious("youngs_modulus", modulus,
                             f"{label}: a stiff-looking material (dense or low CTE) with E of 1-100 MPa; "
-                            "was the value typed in psi? (steel: 29e6 psi = 200e9 Pa)")
+                            "was the value typed in psi? (steel: 29e6 psi = 200e9 Pa)", stacklevel=5)
         if nu < 0.0:
-            warn_suspicious("poisson_ratio", nu, f"{label}: negative (auxetic materials exist, but check)")
+            warn_suspicious("poisson_ratio", nu, f"{label}: negative (auxetic materials exist, but check)", stacklevel=5)
         elif nu > _NU_WARN_HIGH:
             warn_suspicious("poisson_ratio", nu,
-                            f"{label}: above 0.49, nearly incompressible; formulas with 1/(1-2 nu) become ill-conditioned")
+                            f"{label}: above 0.49, nearly incompressible; formulas with 1/(1-2 nu) become ill-conditioned", stacklevel=5)
         if abs(alpha) > _ALPHA_WARN:
-            warn_suspicious("cte", alpha, f"{label}: |alpha| above 3e-4 /K, beyond soft polymers")
+            warn_suspicious("cte", alpha, f"{label}: |alpha| above 3e-4 /K, beyond soft polymers", stacklevel=5)
         elif alpha < 0.0:
-            warn_suspicious("cte", alpha, f"{label}: negative CTE (real for a few materials, but check the sign)")
+            warn_suspicious("cte", alpha, f"{label}: negative CTE (real for a few materials, but check the sign)", stacklevel=5)
         if self.density is not None and self.density < _DENSITY_WARN_LOW:
-            warn_suspicious("density", self.density, f"{label}: below 500 kg/m^3 (g/cm^3 typed as kg/m^3?)")
+            warn_suspicious("density", self.density, f"{label}: below 500 kg/m^3 (g/cm^3 typed as kg/m^3?)", stacklevel=5)
         if self.strength is not None and modulus >= 20e9 and self.strength > modulus / 20.0:
-            warn_suspicious("strength", self.strength, f"{label}: above E/20, an elastic strain over 5 %")
+            warn_suspicious("strength", self.strength, f"{label}: above E/20, an elastic strain over 5 %", stacklevel=5)
 
     # --- derived properties ----------------------------------------------------------------------
     @property
