@@ -41,6 +41,7 @@ __all__ = [
     "thickness_ratio_tradeoff",
     "sign_convention_sketch",
     "travel_curve",
+    "weibull_failures",
     "new_figure",
 ]
 
@@ -330,8 +331,10 @@ def stress_through_thickness(
         names.append(f"{i + 1}: {result.labels[i]}, {float(t_unit(result.thicknesses[i])):.4g} {t_unit.label}")
     state = getattr(result.state, "value", str(result.state))
     k_unit = axis_unit("curvature", system)
+    operating = _scalar_case(result.operating_temperature, index, "temperature")
     heading = title if title is not None else (
-        f"Stress through the thickness ({state} state), κ = {float(k_unit(kappa)):.4g} {k_unit.label}"
+        f"Stress through the thickness at {_temperature_text(operating, system)} ({state} state), "
+        f"κ = {float(k_unit(kappa)):.4g} {k_unit.label}"
     )
 
     key = ("stress", n, to_scale)
@@ -734,4 +737,42 @@ def travel_curve(
     ax.set_title(title, fontsize=10, y=1.0, pad=5)
     ax.legend(fontsize=7, loc="best", frameon=False)
     ax.grid(True, lw=0.3, alpha=0.6)
+    return figure
+
+
+# --------------------------------------------------------------------------------------------
+# Solder joints: failed fraction against cycles
+
+
+def weibull_failures(
+    populations: Sequence[tuple[str, float, float]],
+    ax: "Axes | None" = None,
+    marks: Sequence[tuple[str, float, float]] = (),
+    title: str = "Failed fraction of joints against cycles (two-parameter Weibull)",
+) -> Figure:
+    """Cumulative failed fraction F(N) = 1 - exp(-(N/eta)^beta) of each population ``(label, eta, beta)``.
+
+    ``marks`` adds points ``(label, cycles, fraction)`` (the median life at 50 %, an early-failure life).
+    Cycles on a logarithmic axis; the fraction in percent.
+    """
+    figure, ax = _target(ax, 3.4)
+    etas = [eta for _, eta, _ in populations if np.isfinite(eta) and eta > 0]
+    if etas:
+        low, high = min(etas) * 1e-2, max(etas) * 3.0
+        cycles = np.geomspace(low, high, 300)
+        for k, (label, eta, beta) in enumerate(populations):
+            fraction = 1.0 - np.exp(-((cycles / eta) ** beta))
+            ax.plot(cycles, 100 * fraction, color=PALETTE[(3 * k) % len(PALETTE)], lw=2.0, label=label)
+        ax.set_xscale("log")
+        ax.set_xlim(low, high)
+    for k, (label, n, fraction) in enumerate(marks):
+        ax.plot([n], [100 * fraction], "o", color=PALETTE[(2 * k + 5) % len(PALETTE)], mec="black", ms=6,
+                label=f"{label}: {n:.3g} cycles")
+    ax.axhline(50.0, color="0.6", lw=0.6, ls=":")
+    ax.set_ylim(0, 100)
+    ax.set_xlabel("cycles to failure N (logarithmic)")
+    ax.set_ylabel("failed fraction [%]")
+    ax.set_title(title, fontsize=10, y=1.0, pad=5)
+    ax.legend(fontsize=7, loc="upper left", frameon=False)
+    ax.grid(True, which="both", lw=0.3, alpha=0.5)
     return figure

@@ -154,3 +154,85 @@ def test_thermostat_panel_switches_units(thermostat):
     assert panel.form["length"].value.endswith("in")
     assert "degF" in panel.summary.value
     assert "°F" in panel.ax.get_xlabel()
+
+
+# ---------------------------------------------------------------------------------------------
+# Solder joint
+
+
+SOLDER = """
+name = "test assembly"
+[conditions]
+bending_state = "plate"
+stress_free_temperature = "150 degC"
+operating_temperature = "25 degC"
+[materials.board]
+name = "test board"
+youngs_modulus = "22 GPa"
+poisson_ratio = 0.15
+cte = "17 ppm/K"
+[materials.part]
+name = "test component"
+youngs_modulus = "300 GPa"
+poisson_ratio = 0.22
+cte = "3 ppm/K"
+[[layer]]
+material = "board"
+thickness = "1.6 mm"
+[[layer]]
+material = "part"
+thickness = "0.8 mm"
+[solder_joint]
+dnp = "10 mm"
+standoff = "0.5 mm"
+cycle_low = "5 degC"
+cycle_high = "105 degC"
+dwell = "15 min"
+cycle_rate = "1 cycles/day"
+test_cycle = "-40/+125"
+"""
+
+
+@pytest.fixture
+def solder():
+    explorer = StackExplorer(read_design_text(SOLDER).design)
+    explorer.show("solder joint")
+    return explorer, explorer.jobs["solder_joint"]
+
+
+def test_solder_panel_is_the_modules_assessment(solder):
+    from bilayer.solder import assess_solder_design
+
+    explorer, panel = solder
+    direct = assess_solder_design(explorer.model.design)
+    assert panel.assessment.to_dict() == direct.to_dict()
+    assert f"{direct.joint.median_life:.4g} cycles" in panel.summary.value
+    assert "Screening estimate" in panel.children[0].value
+
+
+def test_solder_panel_reference_values(solder):
+    """DNP strain |17 - 3| ppm/K x 100 K x 10 mm / 0.5 mm = 0.028 (hand value, issue 5); Engelmaier exponent
+    c = -0.442 - 6e-4 T_SJ + 1.74e-2 ln(1 + 360/t_D) = -0.41899 at 55 degC, 15 min (Engelmaier, IEEE Trans.
+    CHMT-6:232, 1983); median life N50 = 1/2 (dgamma / (2 eps_f'))^(1/c) with eps_f' = 0.325."""
+    explorer, panel = solder
+    joint = panel.assessment.joint
+    assert joint.shear_strain == pytest.approx(0.028, rel=1e-9)
+    assert joint.fatigue_exponent == pytest.approx(-0.41899, abs=5e-6)
+    c = -0.442 - 6e-4 * 55 + 1.74e-2 * np.log(1 + 360 / 15)
+    assert joint.median_life == pytest.approx(0.5 * (0.028 / (2 * 0.325)) ** (1 / c), rel=1e-9)
+    line = panel.ax.lines[0]  # field population: F(N) = 1 - exp(-(N/eta)^beta), F(N50) = 50 %
+    eta, beta = joint.weibull_scale, joint.weibull_shape
+    np.testing.assert_allclose(line.get_ydata(), 100 * (1 - np.exp(-(line.get_xdata() / eta) ** beta)), rtol=1e-12)
+    assert 1 - np.exp(-(joint.median_life / eta) ** beta) == pytest.approx(0.5, rel=1e-12)
+
+
+def test_solder_panel_entries_and_bad_entries(solder):
+    explorer, panel = solder
+    panel.form["dnp"].value = "20 mm"
+    assert panel.assessment.joint.shear_strain == pytest.approx(0.056, rel=1e-9)  # linear in DNP
+    before = explorer.model.design
+    panel.form["test_cycle"].value = "-40/+999"
+    assert explorer.model.design is before and "-40/+999" in panel.message.value
+    assert panel.form["test_cycle"].value == "-40/+999"
+    panel.form["cycle_high"].value = "0 degC"  # below the low end
+    assert "cycle_high" in panel.message.value and explorer.model.design is before

@@ -417,3 +417,21 @@ def test_sign_convention_sketch_is_drawn(explorer):
     assert explorer.sketch.image.value[:4] == b"\x89PNG"
     texts = " ".join(t.get_text() for t in explorer.sketch.image.figure.axes[0].texts)
     assert "κ > 0" in texts and "tension" in texts and "ΔT" in texts
+
+
+def test_several_operating_temperatures_and_the_case_selector(explorer):
+    editor = explorer.editor
+    editor.operating.text.value = "-40 degC, 25 degC, 125 degC"
+    design = explorer.model.design
+    np.testing.assert_allclose(design.temperatures.operating, [233.15, 298.15, 398.15])
+    assert editor.case.layout.display == "" and editor.operating_slider.disabled
+    editor.case.value = 2
+    single = bl.evaluate(design.stack, bl.Temperatures(design.temperatures.stress_free, 398.15), design.state)
+    assert_table_matches(explorer, single)
+    stress, _ = stress_line(explorer)
+    np.testing.assert_allclose(stress, np.column_stack([single.stress_bottom, single.stress_top]).ravel() * 1e-6,
+                               rtol=1e-12)
+    explorer.show("interface")
+    assert explorer.interface.result.temperature_change == pytest.approx(398.15 - 293.15)
+    editor.operating.text.value = "60 degC"
+    assert explorer.model.case_index is None and not editor.operating_slider.disabled

@@ -12,6 +12,7 @@ import warnings
 from typing import Callable
 
 import ipywidgets as widgets
+import numpy as np
 import traitlets
 
 from .. import plots
@@ -60,6 +61,7 @@ class DesignModel(traitlets.HasTraits):
     messages = traitlets.Tuple()  # warnings raised while evaluating the current design
     strip_length = traitlets.Float(0.05)  # length of the strip shown by the shape and interface views [m]
     bonds = traitlets.Tuple()  # indices (0 = bottom) of layers that act as bond layers (shear only)
+    case = traitlets.Int(0)  # which operating temperature the views show when the design holds several
 
     def __init__(self, design: Design, system: str = "si"):
         super().__init__()
@@ -75,11 +77,28 @@ class DesignModel(traitlets.HasTraits):
                 result = design.evaluate()
         except BilayerError as error:
             return str(error)
+        cases = int(np.size(design.temperatures.operating)) if np.ndim(design.temperatures.operating) else 1
         with self.hold_trait_notifications():
             self.messages = tuple(str(w.message) for w in caught)
+            self.case = min(self.case, cases - 1)
             self.design = design
             self.result = result
         return ""
+
+    @property
+    def case_index(self) -> int | None:
+        """Index of the operating temperature on show, or None when the design has a single one."""
+        return self.case if np.ndim(self.design.temperatures.operating) else None
+
+    def case_design(self) -> Design:
+        """The current design reduced to the operating temperature on show (for single-case models)."""
+        if self.case_index is None:
+            return self.design
+        from ..stack import Temperatures
+
+        temperatures = self.design.temperatures
+        return self.design.replace(temperatures=Temperatures(temperatures.stress_free,
+                                                             float(temperatures.operating[self.case])))
 
 
 class QuantityField:
@@ -91,9 +110,10 @@ class QuantityField:
     """
 
     def __init__(self, description: str, kind: str, field: str, value_si: float, system: str = "si",
-                 width: str = "11em", tooltip: str = ""):
+                 width: str = "11em", tooltip: str = "", allow_list: bool = False):
         self.kind = kind
         self.field = field
+        self.allow_list = allow_list
         self.text = widgets.Text(
             description=description,
             continuous_update=False,
@@ -110,13 +130,22 @@ class QuantityField:
             return self._exact[1]
         from ..units import parse
 
+        if self.allow_list and "," in text:
+            items = [item.strip() for item in text.split(",")]
+            return np.array([parse(item, self.kind, f"{self.field}[{i}]") for i, item in enumerate(items)])
         return parse(text.strip(), self.kind, self.field)
 
-    def show(self, value_si: float, system: str) -> None:
+    def show(self, value_si, system: str) -> None:
+        """Write ``value_si`` (a number, or a sequence when lists are allowed) in ``system`` units."""
         from ..units import format as format_quantity
 
-        text = format_quantity(value_si, self.kind, system=system, digits=6)
-        self._exact = (text, float(value_si))
+        if np.ndim(value_si):
+            values = np.array(value_si, float)
+            text = ", ".join(format_quantity(float(v), self.kind, system=system, digits=6) for v in values)
+            self._exact = (text, values)
+        else:
+            text = format_quantity(value_si, self.kind, system=system, digits=6)
+            self._exact = (text, float(value_si))
         self.text.value = text
 
     def convert(self, system: str) -> None:

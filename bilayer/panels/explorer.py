@@ -22,8 +22,15 @@ def _thermostat():
     return ThermostatPanel
 
 
+def _solder():
+    from .solder_panel import SolderPanel
+
+    return SolderPanel
+
+
 JOB_PANELS = {
     "thermostat": ("thermostat", _thermostat),
+    "solder_joint": ("solder joint", _solder),
 }
 """Job panels by design-file section name: (tab title, factory returning the panel class)."""
 

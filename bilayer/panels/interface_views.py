@@ -67,7 +67,7 @@ class BondChooser(widgets.SelectMultiple):
 class InterfaceView(View):
     """Interface shear (solid) and peel (dashed) from mid-length to a free end, with their maxima."""
 
-    watches = ("result", "system", "strip_length", "bonds")
+    watches = ("result", "system", "strip_length", "bonds", "case")
     margins = {"left": 0.12, "right": 0.97, "bottom": 0.14, "top": 0.9}
 
     def __init__(self, model: DesignModel, active: bool = True):
@@ -91,7 +91,7 @@ class InterfaceView(View):
         """The interface model for the current design (one core call)."""
         from ..interface import interface_stresses
 
-        design = self.model.design
+        design = self.model.case_design()
         return interface_stresses(design.stack, design.temperatures, self.model.strip_length, design.state,
                                   bonds=self.model.bonds, model=self.bending.value)
 
@@ -182,7 +182,7 @@ def thickness_ratio_sweep(design, length: float, bonds=(), ratios=None, points: 
 class RatioTradeoffView(View):
     """Curvature and peak interface shear over the thickness ratio, with the current design marked."""
 
-    watches = ("result", "system", "strip_length", "bonds")
+    watches = ("result", "system", "strip_length", "bonds", "case")
     margins = {"left": 0.12, "right": 0.87, "bottom": 0.15, "top": 0.9}
 
     def __init__(self, model: DesignModel, active: bool = True):
@@ -197,7 +197,7 @@ class RatioTradeoffView(View):
         self._on_model()
 
     def draw(self) -> None:
-        design = self.model.design
+        design = self.model.case_design()
         if design.stack.n_layers < 2:
             self.message.value = message_html("A single layer has no thickness ratio.", "note")
             return
@@ -214,7 +214,7 @@ class RatioTradeoffView(View):
         self.sweep = (ratios, curvature, peak)
         best = _peak_ratio(ratios, np.abs(curvature))
         plots.thickness_ratio_tradeoff(
-            ratios, curvature, peak, current, float(self.model.result.curvature), current_peak,
+            ratios, curvature, peak, current, float(design.evaluate().curvature), current_peak,
             self.model.system, ax=self.ax, best_ratio=best,
             ratio_label="thickness ratio, part below / part above the first interface",
         )

@@ -12,6 +12,7 @@ import contextlib
 from typing import TYPE_CHECKING
 
 import ipywidgets as widgets
+import numpy as np
 
 from ..errors import BilayerError
 from ..stack import BendingState, Layer, Stack, Temperatures
@@ -164,7 +165,10 @@ class StackEditor(widgets.VBox):
         self.stress_free = QuantityField("stress-free temperature", "temperature", "stress_free_temperature",
                                          design.temperatures.stress_free, system, width="20em")
         self.operating = QuantityField("operating temperature", "temperature", "operating_temperature",
-                                       float(design.temperatures.operating), system, width="20em")
+                                       design.temperatures.operating, system, width="24em", allow_list=True,
+                                       tooltip="one temperature, or several separated by commas; press Enter")
+        self.case = widgets.Dropdown(description="show the case at", style={"description_width": "initial"})
+        self.case.observe(self._case_chosen, names="value")
         self.operating_slider = widgets.FloatSlider(
             description="operating", step=1.0, readout_format=".0f", continuous_update=False,
             style={"description_width": "initial"}, layout=widgets.Layout(width="28em"),
@@ -181,7 +185,7 @@ class StackEditor(widgets.VBox):
             self.state,
             self.state_note,
             widgets.HBox([self.stress_free.text, self.operating.text]),
-            widgets.HBox([self.operating_slider, self.slider_unit]),
+            widgets.HBox([self.operating_slider, self.slider_unit, self.case]),
             self.temperature_message,
             self.message,
         ]
@@ -225,7 +229,7 @@ class StackEditor(widgets.VBox):
             self.rows = [LayerRow(self, layer, system) for layer in design.stack.layers]
             self.state.value = design.state.value
             self.stress_free.show(design.temperatures.stress_free, system)
-            self.operating.show(float(design.temperatures.operating), system)
+            self.operating.show(design.temperatures.operating, system)
             self._renumber()
             self._sync_slider()
             for row in self.rows:
@@ -341,8 +345,25 @@ class StackEditor(widgets.VBox):
         return shown + 273.15 if self.model.system == "si" else (shown + 459.67) / 1.8
 
     def _sync_slider(self) -> None:
-        """Put the slider on the operating temperature of the current design (display units)."""
-        shown = self._display_temperature(float(self.model.design.temperatures.operating))
+        """Put the slider on the operating temperature of the current design (display units); with
+        several operating temperatures the slider rests and a case selector appears instead."""
+        operating = self.model.design.temperatures.operating
+        several = bool(np.ndim(operating))
+        self.operating_slider.disabled = several
+        self.case.layout.display = "" if several else "none"
+        self.slider_unit.value = "°C" if self.model.system == "si" else "°F"
+        if several:
+            options = [(f"{self._display_temperature(float(t)):.4g} {self.slider_unit.value}", i)
+                       for i, t in enumerate(operating)]
+            previous, self._quiet = self._quiet, True
+            try:
+                if list(self.case.options) != options:
+                    self.case.options = options
+                self.case.value = self.model.case
+            finally:
+                self._quiet = previous
+            return
+        shown = self._display_temperature(float(operating))
         low, high = SLIDER_RANGE[self.model.system]
         previous, self._quiet = self._quiet, True
         try:
@@ -352,7 +373,10 @@ class StackEditor(widgets.VBox):
                 slider.value = shown
         finally:
             self._quiet = previous
-        self.slider_unit.value = "°C" if self.model.system == "si" else "°F"
+
+    def _case_chosen(self, change) -> None:
+        if not self._quiet and change["new"] is not None:
+            self.model.case = change["new"]
 
     def _slider_moved(self, change) -> None:
         if self._quiet:

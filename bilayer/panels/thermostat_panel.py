@@ -15,8 +15,8 @@ import ipywidgets as widgets
 
 from .. import plots
 from ..errors import BilayerError
-from ._base import DesignModel, FigureImage, View, message_html
-from .section_form import SectionForm
+from ._base import DesignModel, message_html
+from .job_panel import JobPanel
 
 __all__ = ["ThermostatPanel", "DEFAULT_THERMOSTAT"]
 
@@ -58,32 +58,24 @@ LABELS = {
 }
 
 
-def _caution_box(lines) -> str:
-    items = "".join(f"<li>{escape(line)}</li>" for line in lines)
-    return (f"<div style='border:1px solid #d9a400;background:#fff8e1;padding:4px 8px;font-size:0.85em'>"
-            f"<b>Safety device caution</b><ul style='margin:2px 0'>{items}</ul></div>")
-
-
-class ThermostatPanel(View):
+class ThermostatPanel(JobPanel):
     """Travel, set point, contact force, stress span and set-point scatter of a thermostat element."""
 
-    def __init__(self, model: DesignModel, active: bool = True, attach: bool = False):
-        from ..thermostat import THERMOSTAT_CAUTIONS
+    section = "thermostat"
+    fields = (*COMMON, *sorted({n for group in FORM_FIELDS.values() for n in group}), "gap", "angle_gap",
+              "set_point", *TOLERANCES, *DATASHEET)
+    labels = LABELS
+    defaults = DEFAULT_THERMOSTAT
+    caution_title = "Safety device caution"
 
-        names = (*COMMON, *sorted({n for group in FORM_FIELDS.values() for n in group}), "gap", "angle_gap",
-                 "set_point", *TOLERANCES, *DATASHEET)
-        self.form = SectionForm("thermostat", names, model.system, LABELS, on_change=self._entries_changed)
+    def __init__(self, model: DesignModel, active: bool = True):
         self.goal = widgets.ToggleButtons(
             options=(("set point for a gap", "gap"), ("gap for a set point", "set_point")), value="gap",
             description="solve for", style={"description_width": "initial", "button_width": "11em"})
         self.datasheet = widgets.Checkbox(value=False, description="use a data-sheet flexivity instead of the layers",
                                           indent=False)
-        self.goal.observe(lambda change: self._entries_changed(), names="value")
-        self.datasheet.observe(lambda change: self._entries_changed(), names="value")
-        self.message = widgets.HTML()
-        self.image = FigureImage(3.4, {"left": 0.12, "right": 0.97, "bottom": 0.14, "top": 0.9})
-        self.ax = self.image.figure.add_subplot()
-        self.summary = widgets.HTML()
+        self.goal.observe(lambda change: self.entries_changed(), names="value")
+        self.datasheet.observe(lambda change: self.entries_changed(), names="value")
         self.scatter_button = widgets.Button(description="run Monte Carlo", icon="play",
                                              tooltip="set-point scatter from the tolerances (runs in the background)")
         self.progress = widgets.IntProgress(value=0, min=0, max=1, description="samples",
@@ -91,111 +83,59 @@ class ThermostatPanel(View):
         self.scatter = widgets.HTML()
         self.scatter_button.on_click(lambda _: self.run_monte_carlo())
         self.thread: threading.Thread | None = None
-        self.report = None
         self.scatter_result = None
-        self._attached = attach
-        self._proposed = None
-        self._filling = False
-        self._cache = (None, None)
+        super().__init__(model, active=active)
+
+    @property
+    def report(self):
+        """The element report on screen (:class:`bilayer.thermostat_report.ThermostatReport`)."""
+        return self.result
+
+    def cautions(self) -> tuple[str, ...]:
+        from ..thermostat import THERMOSTAT_CAUTIONS
+
+        return THERMOSTAT_CAUTIONS
+
+    def controls(self) -> widgets.Widget:
         entries = self.form.entries
-        geometry = widgets.VBox([entries[n].widget for n in names if n in COMMON[:3] or
+        geometry = widgets.VBox([entries[n].widget for n in self.fields if n in COMMON[:3] or
                                  any(n in group for group in FORM_FIELDS.values())])
-        contact = widgets.VBox([self.goal] + [entries[n].widget for n in ("gap", "angle_gap", "set_point",
-                                                                            "contact_side", "limit_stress",
-                                                                            "stress_factor", "overtravel",
-                                                                            "curve_from", "curve_to")])
+        contact = widgets.VBox([self.goal] + [entries[n].widget for n in (
+            "gap", "angle_gap", "set_point", "contact_side", "limit_stress", "stress_factor", "overtravel",
+            "curve_from", "curve_to")])
         tolerances = widgets.VBox([entries[n].widget for n in TOLERANCES] +
                                   [widgets.HBox([self.scatter_button, self.progress]), self.scatter])
         datasheet = widgets.VBox([self.datasheet] + [entries[n].widget for n in DATASHEET])
         self.sections = widgets.Accordion([geometry, contact, tolerances, datasheet],
                                           titles=("element", "contact and limits", "tolerances", "data-sheet flexivity"))
         self.sections.selected_index = 0
-        super().__init__(model, [widgets.HTML(_caution_box(THERMOSTAT_CAUTIONS)), self.sections, self.message,
-                                 self.image, self.summary], active=active)
-        model.observe(self._design_changed, names="design")
-        model.observe(lambda change: self.form.convert(change["new"]), names="system")
-        self._fill(model.design)
-        self._on_model()
+        return self.sections
 
-    # -- entries -----------------------------------------------------------------------------
-    def _fill(self, design) -> None:
-        values = dict(design.sections.get("thermostat", DEFAULT_THERMOSTAT))
-        self._filling = True
-        try:
-            self.goal.value = "set_point" if values.get("set_point") is not None and "gap" not in values else "gap"
-            self.datasheet.value = values.get("flexivity") is not None
-            self.form.show(values, self.model.system)
-            self._show_relevant()
-        finally:
-            self._filling = False
+    def fill_extra(self, values: dict) -> None:
+        self.goal.value = "set_point" if values.get("set_point") is not None and "gap" not in values else "gap"
+        self.datasheet.value = values.get("flexivity") is not None
 
-    def _show_relevant(self) -> None:
+    def shown_fields(self) -> tuple[str, ...]:
         form = self.form.entries["form"].widget.value
         coil = form in ("spiral", "helix")
-        shown = list(COMMON) + list(FORM_FIELDS[form]) + list(TOLERANCES)
+        shown = [*COMMON, *FORM_FIELDS[form], *TOLERANCES]
         shown.append("set_point" if self.goal.value == "set_point" else ("angle_gap" if coil else "gap"))
         if self.datasheet.value:
             shown += DATASHEET
-        self.form.show_only(shown)
+        return tuple(shown)
 
-    def section_values(self) -> dict:
-        """Validated [thermostat] values from the entries (raises the project error of the first bad one)."""
-        self._show_relevant()
-        return self.form.values()
-
-    def _entries_changed(self) -> None:
-        if self._filling:
-            return
-        try:
-            values = self.section_values()
-            candidate = self.model.design.with_section("thermostat", values)
-            report = self._analyse(candidate)
-        except BilayerError as error:
-            self.message.value = message_html(f"{error}. The figure and report show the last valid element.")
-            return
-        self._attached = True
-        self._proposed = candidate
-        self._cache = (candidate, report)  # the redraw triggered by the proposal reuses it
-        error = self.model.propose(candidate)
-        self._proposed = None
-        if error:
-            self.message.value = message_html(f"{error}. The figure and report show the last valid element.")
-            return
-        self.message.value = ""
+    def after_change(self) -> None:
         self.scatter_result = None
         self.scatter.value = ""
 
-    def _design_changed(self, change) -> None:
-        if change["new"] is not self._proposed and "thermostat" in change["new"].sections:
-            self._fill(change["new"])
-
-    # -- computing and drawing ---------------------------------------------------------------
-    def current_design(self):
-        """The design the panel reports on: the model's, with the default section until one is entered."""
-        design = self.model.design
-        if "thermostat" in design.sections:
-            return design
-        from ..sections import section
-
-        return design.with_section("thermostat", section("thermostat").normalise(DEFAULT_THERMOSTAT))
-
-    @staticmethod
-    def _analyse(design):
+    def compute(self, design):
         """The element report without the Monte Carlo run (that one waits for the button)."""
         from ..thermostat_report import analyse
 
         values = dict(design.sections["thermostat"])
         return analyse(design.with_section("thermostat", {**values, "monte_carlo": False}))
 
-    def draw(self) -> None:
-        design = self.current_design()
-        try:
-            cached_design, cached_report = self._cache
-            report = cached_report if cached_design is design else self._analyse(design)
-        except BilayerError as error:
-            self.message.value = message_html(f"{error}. The figure and report show the last valid element.")
-            return
-        self.report = report
+    def render(self, report) -> None:
         system = self.model.system
         curve, set_point = report.curve, report.set_point
         contact = None if set_point is None else set_point.side * set_point.gap
@@ -203,8 +143,8 @@ class ThermostatPanel(View):
                            contact=contact, set_point=None if set_point is None else set_point.temperature,
                            reference=report.element.reference_temperature,
                            title=f"{report.element.form.kind}: travel against temperature")
-        self.image.refresh()
-        self.summary.value = f"<pre style='white-space:pre-wrap;font-size:0.85em'>{escape(report.to_text(system, cautions=False))}</pre>"
+        self.summary.value = (f"<pre style='white-space:pre-wrap;font-size:0.85em'>"
+                              f"{escape(report.to_text(system, cautions=False))}</pre>")
 
     # -- Monte Carlo behind a button ---------------------------------------------------------
     def run_monte_carlo(self) -> threading.Thread | None:

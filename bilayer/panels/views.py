@@ -44,28 +44,38 @@ class ResultTable(View):
         super().__init__(model, [self.html], active=active)
         self._on_model()
 
+    watches = ("result", "system", "case")
+
     def draw(self) -> None:
-        result, system = self.model.result, self.model.system
-        kappa = float(result.curvature)
+        result, system, case = self.model.result, self.model.system, self.model.case_index
+
+        def pick(values):
+            values = np.asarray(values, float)
+            return values if case is None else values[case]
+
+        kappa = float(pick(result.curvature))
+        radius_value = float(pick(result.radius))
+        bottom, top = pick(result.stress_bottom), pick(result.stress_top)
+        change = float(pick(result.temperature_change))
         self.shown = {
             "state": result.state.value,
-            "temperature_change": float(result.temperature_change),
+            "temperature_change": change,
             "curvature": kappa,
-            "radius": float(result.radius),
-            "stress_bottom": tuple(float(s) for s in result.stress_bottom),
-            "stress_top": tuple(float(s) for s in result.stress_top),
+            "radius": radius_value,
+            "stress_bottom": tuple(float(s) for s in bottom),
+            "stress_top": tuple(float(s) for s in top),
         }
-        radius = "flat (infinite)" if not np.isfinite(result.radius) else _fmt(result.radius, "length", system)
+        radius = "flat (infinite)" if not np.isfinite(radius_value) else _fmt(radius_value, "length", system)
         head = (
             f"<b>{escape(result.state.description)}</b><br>"
-            f"ΔT = {_fmt(result.temperature_change, 'temperature_difference', system)} &nbsp; "
+            f"ΔT = {_fmt(change, 'temperature_difference', system)} &nbsp; "
             f"curvature κ = {_fmt(kappa, 'curvature', system)} &nbsp; radius = {radius}"
         )
         rows = "".join(
             f"<tr><td>{i + 1}</td><td>{escape(result.labels[i])}</td>"
             f"<td>{_fmt(result.thicknesses[i], 'length', system)}</td>"
-            f"<td style='text-align:right'>{_fmt(result.stress_bottom[i], 'stress', system)}</td>"
-            f"<td style='text-align:right'>{_fmt(result.stress_top[i], 'stress', system)}</td></tr>"
+            f"<td style='text-align:right'>{_fmt(bottom[i], 'stress', system)}</td>"
+            f"<td style='text-align:right'>{_fmt(top[i], 'stress', system)}</td></tr>"
             for i in reversed(range(result.n_layers))
         )
         table = (
@@ -82,6 +92,7 @@ class ResultTable(View):
 
 class _FigureView(View):
     height = 3.6
+    watches = ("result", "system", "case")
     margins = {"left": 0.12, "right": 0.97, "bottom": 0.15, "top": 0.9}
 
     def __init__(self, model: DesignModel, controls=(), active: bool = True):
@@ -108,7 +119,8 @@ class StressView(_FigureView):
         self._on_model()
 
     def draw(self) -> None:
-        plots.stress_through_thickness(self.model.result, self.model.system, ax=self.ax)
+        plots.stress_through_thickness(self.model.result, self.model.system, ax=self.ax,
+                                       index=self.model.case_index)
         self.image.refresh()
 
 
@@ -156,7 +168,7 @@ class ShapeView(_FigureView):
 
     height = 3.2
     margins = {"left": 0.12, "right": 0.98, "bottom": 0.15, "top": 0.9}
-    watches = ("result", "system", "strip_length")
+    watches = ("result", "system", "strip_length", "case")
 
     def __init__(self, model: DesignModel, support: str = "cantilever", active: bool = True):
         self.message = widgets.HTML()
@@ -171,7 +183,7 @@ class ShapeView(_FigureView):
 
     def draw(self) -> None:
         plots.deflected_shape(self.model.result, self.model.strip_length, self.support.value, self.model.system,
-                              ax=self.ax)
+                              ax=self.ax, index=self.model.case_index)
         self.image.refresh()
 
 
