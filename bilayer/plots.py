@@ -42,6 +42,7 @@ __all__ = [
     "sign_convention_sketch",
     "travel_curve",
     "weibull_failures",
+    "stoney_error_curve",
     "new_figure",
 ]
 
@@ -446,20 +447,21 @@ def deflected_shape(
     T = _scalar_case(result.operating_temperature, index, "temperature")
     heading = f"Deflected shape at {_temperature_text(T, system)}"
     span = abs(end) if abs(end) > 1e-9 * length else 1e-3 * length
-    note = (f"{where} deflection {float(x_unit(end)):+.4g} {x_unit.label} "
-            f"(small-deflection formula {float(x_unit(small)):+.4g})")
+    w_unit = axis_unit("length", system, float(np.max(np.abs(w))) or None)
+    note = (f"{where} deflection {float(w_unit(end)):+.4g} {w_unit.label} "
+            f"(small-deflection formula {float(w_unit(small)):+.4g})")
     if 1.7 * span < 0.2 * length:
         note += "; vertical scale stretched"
 
-    key = ("shape", support)
+    key = ("shape", support, w_unit.label)
     art = _reusable(ax, key)
     if art is None:
         figure, ax = _target(ax, 3.2)
         above = offset_copy(ax.transData, fig=figure, y=1.6, units="points")
         below = offset_copy(ax.transData, fig=figure, y=-1.6, units="points")
         (reference,) = ax.plot(x_unit(flat), [0.0, 0.0], ls="--", color="0.5", lw=1.0)
-        (top,) = ax.plot(x_unit(x), x_unit(w), color=top_colour, lw=3.2, transform=above)
-        (bottom,) = ax.plot(x_unit(x), x_unit(w), color=bottom_colour, lw=3.2, transform=below)
+        (top,) = ax.plot(x_unit(x), w_unit(w), color=top_colour, lw=3.2, transform=above)
+        (bottom,) = ax.plot(x_unit(x), w_unit(w), color=bottom_colour, lw=3.2, transform=below)
         (holder,) = ax.plot([0.0], [0.0], marker="s" if support == "cantilever" else "^", color="0.3", ms=8, ls="")
         text = ax.text(0.99, 0.97, "", transform=ax.transAxes, fontsize=8, ha="right",
                        bbox={"fc": "white", "alpha": 0.85, "lw": 0})
@@ -471,10 +473,10 @@ def deflected_shape(
         current_ylim = ax.get_ylim()
         art["reference"].set_xdata(x_unit(flat))
         for name, colour in (("top", top_colour), ("bottom", bottom_colour)):
-            art[name].set_data(x_unit(x), x_unit(w))
+            art[name].set_data(x_unit(x), w_unit(w))
             art[name].set_color(colour)
     ax.set_xlim(*_padded(*x_unit(flat)))  # the flat length: steady while the arc shortens its chord
-    shown_w = x_unit(w)
+    shown_w = w_unit(w)
     low, high = float(min(0.0, shown_w.min())), float(max(0.0, shown_w.max()))
     ax.set_ylim(*_sticky_limits(current_ylim, low - 0.3 * (high - low), high + 0.3 * (high - low), share=0.5))
     art["text"].set_text(note)
@@ -482,12 +484,13 @@ def deflected_shape(
     art["text"].set_va("top" if end <= 0 else "bottom")
     legend_key = (labels, end <= 0)
     if art.get("legend_key") != legend_key:
-        ax.legend([art["reference"], art["top"], art["bottom"], art["holder"]], labels, fontsize=7,
-                  loc="lower left" if end <= 0 else "upper left", frameon=False)
+        place = ("lower " if end <= 0 else "upper ") + ("left" if support == "cantilever" else "center")
+        ax.legend([art["reference"], art["top"], art["bottom"], art["holder"]], labels, fontsize=7, loc=place,
+                  frameon=False)
         art["legend_key"] = legend_key
     ax.set_xlabel(_axis_label(f"position x along the strip (exact arc of length {float(x_unit(length)):.4g} "
                               f"{x_unit.label})", x_unit))
-    ax.set_ylabel(_axis_label("deflection w (up > 0)", x_unit))
+    ax.set_ylabel(_axis_label("deflection w (up > 0)", w_unit))
     ax.set_title(heading, fontsize=10, y=1.0, pad=5)
     _mark_dynamic(ax, [art["top"], art["bottom"], art["text"], ax.title], labels, top_colour, bottom_colour,
                   end <= 0, tuple(x_unit(flat)))
@@ -774,5 +777,42 @@ def weibull_failures(
     ax.set_ylabel("failed fraction [%]")
     ax.set_title(title, fontsize=10, y=1.0, pad=5)
     ax.legend(fontsize=7, loc="upper left", frameon=False)
+    ax.grid(True, which="both", lw=0.3, alpha=0.5)
+    return figure
+
+
+# --------------------------------------------------------------------------------------------
+# Thin films: how far Stoney is off
+
+
+def stoney_error_curve(
+    film_thickness: np.ndarray,
+    stress_error: np.ndarray,
+    curvature_error: np.ndarray,
+    current_thickness: float,
+    current_stress_error: float,
+    current_curvature_error: float,
+    system: str = "si",
+    ax: "Axes | None" = None,
+    title: str = "Stoney against the exact bilayer, over the film thickness",
+) -> Figure:
+    """Relative error of Stoney's film stress (read from a curvature) and of Stoney's curvature (predicted
+    from a misfit) against the film thickness, logarithmic, with the current film marked. Errors as
+    fractions (sigma_Stoney/<sigma_f> - 1 and kappa_Stoney/kappa_exact - 1), shown in percent."""
+    figure, ax = _target(ax, 3.4)
+    t = np.asarray(film_thickness, float)
+    x_unit = axis_unit("length", system, float(np.max(t)) if t.size else None)
+    ax.plot(x_unit(t), 100 * np.asarray(stress_error), color=PALETTE[0], lw=2.0,
+            label="film stress from a measured curvature")
+    ax.plot(x_unit(t), 100 * np.asarray(curvature_error), color=PALETTE[5], lw=1.6, ls="--",
+            label="curvature predicted from a misfit")
+    ax.plot([float(x_unit(current_thickness))] * 2, [100 * current_stress_error, 100 * current_curvature_error], "o",
+            color="black", ms=5, label=f"this film, {float(x_unit(current_thickness)):.4g} {x_unit.label}")
+    ax.axhline(0.0, color="0.3", lw=0.7)
+    ax.set_xscale("log")
+    ax.set_xlabel(_axis_label("film thickness", x_unit))
+    ax.set_ylabel("Stoney error [%]")
+    ax.set_title(title, fontsize=10, y=1.0, pad=5)
+    ax.legend(fontsize=7, loc="best", frameon=False)
     ax.grid(True, which="both", lw=0.3, alpha=0.5)
     return figure

@@ -236,3 +236,74 @@ def test_solder_panel_entries_and_bad_entries(solder):
     assert panel.form["test_cycle"].value == "-40/+999"
     panel.form["cycle_high"].value = "0 degC"  # below the low end
     assert "cycle_high" in panel.message.value and explorer.model.design is before
+
+
+# ---------------------------------------------------------------------------------------------
+# Film on a wafer
+
+
+FILM = """
+name = "test film"
+[conditions]
+bending_state = "plate"
+stress_free_temperature = "400 degC"
+operating_temperature = "25 degC"
+[[layer]]
+material = "silicon_100"
+thickness = "500 um"
+[[layer]]
+material = "si3n4_lpcvd"
+thickness = "1 um"
+[film]
+substrate_orientation = "100"
+scan_diameter = "100 mm"
+bow_before = "2 um"
+bow_after = "-20 um"
+"""
+
+
+@pytest.fixture
+def film():
+    explorer = StackExplorer(read_design_text(FILM).design)
+    explorer.show("film")
+    return explorer, explorer.jobs["film"]
+
+
+def test_film_panel_is_the_modules_assessment(film):
+    from bilayer.films import assess_film_design
+
+    explorer, panel = film
+    assert panel.assessment.to_dict() == assess_film_design(explorer.model.design).to_dict()
+
+
+def test_film_panel_stoney_from_bow(film):
+    """Stoney (Proc. R. Soc. A 82:172, 1909), biaxial form in the project sign: sigma_f = -M_s h_s^2 dkappa/(6 h_f);
+    bow to curvature by circle geometry kappa = 8 b/(D^2 + 4 b^2)."""
+    explorer, panel = film
+    kappa = lambda b: 8 * b / (0.1**2 + 4 * b * b)  # noqa: E731
+    dk = kappa(-20e-6) - kappa(2e-6)
+    Ms = panel.assessment.thermal.substrate_biaxial_modulus
+    assert panel.assessment.measured.stoney_stress == pytest.approx(-Ms * 500e-6**2 * dk / (6 * 1e-6), rel=1e-12)
+    panel.form["bow_after"].value = "-40 um"
+    assert explorer.model.design.sections["film"]["bow_after"] == pytest.approx(-40e-6)
+    dk2 = kappa(-40e-6) - kappa(2e-6)
+    assert panel.assessment.measured.stoney_stress == pytest.approx(-Ms * 500e-6**2 * dk2 / (6 * 1e-6), rel=1e-12)
+
+
+def test_film_panel_error_curve_follows_the_first_order_correction(film):
+    """Stoney is the thin-film limit of the exact bilayer: sigma_Stoney/<sigma_f> = (1 + r)/(1 + g r^3), so the
+    error tends to r = h_f/h_s (Klein, J. Appl. Phys. 88:5487, 2000; layers.md section 4)."""
+    explorer, panel = film
+    stress_line, curvature_line = panel.ax.lines[0], panel.ax.lines[1]
+    assert panel.ax.get_xlabel().endswith("[µm]")
+    r = stress_line.get_xdata()[0] * 1e-6 / 500e-6
+    assert stress_line.get_ydata()[0] / 100 == pytest.approx(r, rel=1e-3)
+    assert abs(curvature_line.get_ydata()[-1]) > abs(curvature_line.get_ydata()[0])
+
+
+def test_film_panel_refuses_mixed_inputs(film):
+    explorer, panel = film
+    before = explorer.model.design
+    panel.form["curvature_after"].value = "0.01 1/m"
+    assert explorer.model.design is before
+    assert "curvature" in panel.message.value

@@ -28,9 +28,16 @@ def _solder():
     return SolderPanel
 
 
+def _film():
+    from .film_panel import FilmPanel
+
+    return FilmPanel
+
+
 JOB_PANELS = {
     "thermostat": ("thermostat", _thermostat),
     "solder_joint": ("solder joint", _solder),
+    "film": ("film", _film),
 }
 """Job panels by design-file section name: (tab title, factory returning the panel class)."""
 
