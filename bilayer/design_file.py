@@ -29,7 +29,7 @@ import os
 import re
 import tempfile
 import warnings
-from dataclasses import dataclass
+from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Mapping
 
@@ -50,17 +50,25 @@ __all__ = [
 
 FORMAT_VERSION = 1
 _TOP_KEYS = ("format_version", "name", "notes")
+_READ_HERE = ("conditions", "layer", "materials", "results")  # core tables this module reads and writes itself
 _BARE_KEY = re.compile(r"[A-Za-z0-9_\-]+")
 
 
 @dataclass(frozen=True)
 class DesignDocument:
-    """What a design file holds: the design, its results snapshot (or None) and the format version."""
+    """What a design file holds: the design, its results snapshot (or None) and the format version.
+
+    ``extra`` holds, as read, the tables of other registered core sections that this module does not
+    interpret (e.g. ``[record]`` and ``[[review]]`` of :mod:`bilayer.records`); ``line_of(table, key)``
+    gives the line of a key for their error messages.
+    """
 
     design: Any
     results: Mapping[str, Any] | None
     format_version: int
     source: str
+    extra: Mapping[str, Any] = field(default_factory=dict)
+    line_of: Any = field(default=lambda table, key: None, compare=False, repr=False)
 
 
 # --- locating keys for error messages -------------------------------------------------------------
@@ -206,7 +214,9 @@ def read_design_text(text: str, where: str = "<text>", library: Any = None) -> D
         raise
     except InputError as error:
         raise top.wrap(error.field, error) from None
-    return DesignDocument(design, results, version, where)
+    extra = {name: document[name] for name, spec in sections().items()
+             if spec.core and name not in _READ_HERE and name in document}
+    return DesignDocument(design, results, version, where, extra, line_of)
 
 
 def _short(value: Any) -> Any:
@@ -266,8 +276,13 @@ def _read_layers(document: Mapping, where: str, line_of: _LineIndex, custom: Map
 # --- writing --------------------------------------------------------------------------------------
 
 
-def design_to_text(design: Any, results: Any = None, system: str = "si", library: Any = None) -> str:
-    """The TOML text of a design (and optional results snapshot) in unit ``system`` ("si" or "us")."""
+def design_to_text(design: Any, results: Any = None, system: str = "si", library: Any = None,
+                   extra: Mapping[str, Any] | None = None) -> str:
+    """The TOML text of a design (and optional results snapshot) in unit ``system`` ("si" or "us").
+
+    ``extra`` adds TOML-ready tables of other registered core sections after ``[results]`` (e.g.
+    ``[record]`` and ``[[review]]`` from :mod:`bilayer.records`); they are written as given.
+    """
     from .sections.materials import write_material
     from .sections.results import write_results
     from .stack import Design
@@ -314,6 +329,12 @@ def design_to_text(design: Any, results: Any = None, system: str = "si", library
         document[name] = known[name].write(values, system)
     if results is not None:
         document["results"] = write_results(results)
+    registered = sections()
+    for name, table in (extra or {}).items():
+        spec = registered.get(name)
+        if spec is None or not spec.core or name in _READ_HERE or name in document:
+            raise InputError("extra", name, "a registered core section written outside design_file")
+        document[name] = table
     header = (
         f"# bilayer design file, format {FORMAT_VERSION} (docs/design-file.md)\n"
         "# Layers are listed bottom first. Quantities are texts with units or plain SI numbers.\n"
@@ -359,14 +380,14 @@ def _material_ids(design: Any, library: Any) -> dict[int, tuple[str, Any]]:
 
 
 def save_design(design: Any, path: "str | os.PathLike", results: Any = None, system: str = "si",
-                library: Any = None) -> Path:
+                library: Any = None, extra: Mapping[str, Any] | None = None) -> Path:
     """Write ``design`` (and an optional results snapshot) to ``path`` atomically; returns the path.
 
     The text is built first; then it goes to a temporary file in the same directory, is flushed and
     fsync'ed, and replaces ``path`` with ``os.replace``. On any failure the old file is untouched
     and the temporary file removed.
     """
-    return write_text_atomic(path, design_to_text(design, results, system, library))
+    return write_text_atomic(path, design_to_text(design, results, system, library, extra))
 
 
 def write_text_atomic(path: "str | os.PathLike", text: str) -> Path:
