@@ -349,6 +349,7 @@ class DesignRecord:
 
 
 def with_full_sources(material: Any, library: Any) -> Any:
+    """``material`` with each ``[citation_key]`` in its sources replaced by the library's full citation."""
     if not material.sources:
         return material
     expanded = {key: library.expand_source(text) for key, text in material.sources.items()}
@@ -360,6 +361,7 @@ def with_full_sources(material: Any, library: Any) -> Any:
 
 
 def results_dict(result: Any) -> dict:
+    """The snapshot form of a result: ``StackResult.to_dict()`` (or a copy of such a dict) without ``units``."""
     data = result.to_dict() if hasattr(result, "to_dict") else dict(result)
     data.pop("units", None)
     return data
