@@ -21,6 +21,8 @@ unit strings, or with the ``_C`` suffix in degC.
 """
 from __future__ import annotations
 
+from fractions import Fraction
+
 import math
 import os
 import re
@@ -135,7 +137,8 @@ class _Reader:
                 name = f"{key}_C" if scalar else f"{key}_C[{i}]"
                 if isinstance(item, bool) or not isinstance(item, (int, float)):
                     raise self.error(name, item, "a plain number in degC")
-                result.append(float(item) + KELVIN_OFFSET)
+                # correctly rounded, so the kelvin value reads back as the decimal degC typed
+                result.append(float(Fraction(repr(item)) + Fraction(repr(KELVIN_OFFSET))))
             return result
         return [self.quantity(key if scalar else f"{key}[{i}]", item, "temperature") for i, item in enumerate(items)]
 
