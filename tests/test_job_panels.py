@@ -307,3 +307,90 @@ def test_film_panel_refuses_mixed_inputs(film):
     panel.form["curvature_after"].value = "0.01 1/m"
     assert explorer.model.design is before
     assert "curvature" in panel.message.value
+
+
+# ---------------------------------------------------------------------------------------------
+# Adhesive bond
+
+
+ADHESIVE = """
+name = "test bond"
+[conditions]
+bending_state = "narrow"
+stress_free_temperature = "120 degC"
+operating_temperature = ["-20 degC", "90 degC"]
+[materials.lower]
+name = "lower test adherend"
+youngs_modulus = "70 GPa"
+poisson_ratio = 0.33
+cte = "23 ppm/K"
+[materials.glue]
+name = "test adhesive"
+youngs_modulus = "2.6 GPa"
+poisson_ratio = 0.3
+cte = "60 ppm/K"
+[materials.upper]
+name = "upper test adherend"
+youngs_modulus = "300 GPa"
+poisson_ratio = 0.22
+cte = "7 ppm/K"
+[[layer]]
+material = "lower"
+thickness = "2 mm"
+[[layer]]
+material = "glue"
+thickness = "0.1 mm"
+[[layer]]
+material = "upper"
+thickness = "0.6 mm"
+[adhesive_bond]
+overlap = "40 mm"
+allowable_shear = "20 MPa"
+sweep_bond_line = ["0.05 mm", "0.1 mm", "0.2 mm"]
+"""
+
+
+@pytest.fixture
+def adhesive():
+    pytest.importorskip("bilayer.adhesive")
+    explorer = StackExplorer(read_design_text(ADHESIVE).design)
+    explorer.show("adhesive bond")
+    return explorer, explorer.jobs["adhesive_bond"]
+
+
+def test_adhesive_panel_is_the_modules_assessment(adhesive):
+    from bilayer.adhesive import assess_adhesive_design
+
+    explorer, panel = adhesive
+    assert panel.assessment.to_dict() == assess_adhesive_design(explorer.model.design).to_dict()
+    assert panel.sweep_choice.options == (("bond line", 0),)
+    line = panel.sweep_ax.lines[0]
+    np.testing.assert_allclose(line.get_ydata(), np.abs(panel.assessment.sweeps[0].end_shear) * 1e-6, rtol=1e-12)
+
+
+def test_adhesive_panel_no_bending_limit_is_chen_and_nelson(adhesive):
+    """Long-joint end shear without bending (Chen & Nelson, IBM J. Res. Dev. 23:179, 1979; Volkersen-type):
+    tau_end = |da dT| sqrt(G0/h0) / sqrt(1/(E1 t1) + 1/(E2 t2)) tanh(k l), k^2 = (G0/h0)(1/(E1 t1) + 1/(E2 t2))."""
+    explorer, panel = adhesive
+    panel.form["model"].value = "no_bending"
+    assert explorer.model.design.sections["adhesive_bond"]["model"] == "no_bending"
+    G0, h0 = 2.6e9 / (2 * 1.3), 0.1e-3
+    compliance = 1 / (70e9 * 2e-3) + 1 / (300e9 * 0.6e-3)
+    k = np.sqrt(G0 / h0 * compliance)
+    for dT, shear in zip((-140.0, -30.0), panel.assessment.result.end_shear):
+        expected = abs((7e-6 - 23e-6) * dT) * np.sqrt(G0 / h0) / np.sqrt(compliance) * np.tanh(k * 0.02)
+        assert abs(shear) == pytest.approx(expected, rel=1e-9)
+
+
+def test_adhesive_panel_bad_overlap(adhesive):
+    explorer, panel = adhesive
+    before = explorer.model.design
+    panel.form["overlap"].value = "0 mm"
+    assert explorer.model.design is before and "overlap" in panel.message.value
+
+
+def test_a_hidden_job_panel_still_answers_for_the_current_design(thermostat):
+    explorer, panel = thermostat
+    explorer.show("stress")
+    explorer.editor.rows[0].thickness.text.value = "0.3 mm"
+    assert panel.report.to_text("si") == _direct_report(explorer.model.design).to_text("si")

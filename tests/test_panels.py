@@ -435,3 +435,13 @@ def test_several_operating_temperatures_and_the_case_selector(explorer):
     assert explorer.interface.result.temperature_change == pytest.approx(398.15 - 293.15)
     editor.operating.text.value = "60 degC"
     assert explorer.model.case_index is None and not editor.operating_slider.disabled
+
+
+def test_save_never_overwrites_a_reviewed_record(explorer, tmp_path):
+    path = tmp_path / "reviewed.record.toml"
+    text = '[record]\nformat = 1\n\n[[review]]\nreviewer = "someone"\n'
+    path.write_text(text)
+    explorer.files.path.value = str(path)
+    assert not explorer.files.save()
+    assert "review panel" in explorer.files.message.value
+    assert path.read_text() == text

@@ -2,8 +2,10 @@
 
 Saving writes the model's current design with :func:`bilayer.design_file.save_design` (atomic: a
 temporary file, then a rename). It refuses while an entry is invalid, so a file never silently
-holds something other than what is on screen; the typed entries stay as they are. Loading a file
-that fails to parse shows the error and changes nothing.
+holds something other than what is on screen; the typed entries stay as they are. It also refuses
+to overwrite a reviewed design record (a file with ``[record]`` or ``[[review]]`` tables): that is
+saved from the review panel, which keeps the review log. Loading a file that fails to parse shows
+the error and changes nothing.
 """
 from __future__ import annotations
 
@@ -43,6 +45,11 @@ class DesignFilePanel(widgets.VBox):
         from ..design_file import save_design
 
         path = Path(self.path.value.strip()).expanduser()
+        if _is_record(path):
+            self.message.value = message_html(
+                f"Not saved: {path} is a reviewed design record; save it from the review panel, which keeps "
+                "its review log (nothing was written)")
+            return False
         try:
             save_design(self.model.design, path)
         except (BilayerError, OSError) as error:
@@ -67,3 +74,14 @@ class DesignFilePanel(widgets.VBox):
             return False
         self.message.value = message_html(f"Loaded {path}.", "info")
         return True
+
+
+def _is_record(path: Path) -> bool:
+    """True if ``path`` holds a design record (a results snapshot with provenance or a review log)."""
+    import tomllib
+
+    try:
+        data = tomllib.loads(path.read_text(encoding="utf-8"))
+    except (OSError, UnicodeDecodeError, tomllib.TOMLDecodeError):
+        return False
+    return "record" in data or "review" in data

@@ -34,9 +34,16 @@ def _film():
     return FilmPanel
 
 
+def _adhesive():
+    from .adhesive_panel import AdhesivePanel
+
+    return AdhesivePanel
+
+
 JOB_PANELS = {
     "thermostat": ("thermostat", _thermostat),
     "solder_joint": ("solder joint", _solder),
+    "adhesive_bond": ("adhesive bond", _adhesive),
     "film": ("film", _film),
 }
 """Job panels by design-file section name: (tab title, factory returning the panel class)."""

@@ -46,7 +46,7 @@ class FilmPanel(JobPanel):
     @property
     def assessment(self):
         """The assessment on screen (:class:`bilayer.films.FilmAssessment`)."""
-        return self.result
+        return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
         from ..cautions import CAUTIONS

@@ -121,6 +121,12 @@ class JobPanel(View):
             self.fill(change["new"])
 
     # -- computing and drawing -----------------------------------------------------------------
+    def latest(self):
+        """The job result for the current design, computed now if the panel was hidden when it changed."""
+        if self._stale:
+            self.redraw()
+        return self.result
+
     def current_design(self):
         """The model's design, with the default section until one is entered."""
         design = self.model.design

@@ -61,7 +61,7 @@ class SolderPanel(JobPanel):
     @property
     def assessment(self):
         """The assessment on screen (:class:`bilayer.solder.SolderAssessment`)."""
-        return self.result
+        return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
         from ..solder import SOLDER_CAUTIONS

@@ -89,7 +89,7 @@ class ThermostatPanel(JobPanel):
     @property
     def report(self):
         """The element report on screen (:class:`bilayer.thermostat_report.ThermostatReport`)."""
-        return self.result
+        return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
         from ..thermostat import THERMOSTAT_CAUTIONS
