@@ -44,6 +44,7 @@ __all__ = [
     "weibull_failures",
     "stoney_error_curve",
     "parameter_sweep",
+    "closed_form_against_fe",
     "new_figure",
 ]
 
@@ -868,4 +869,69 @@ def parameter_sweep(
     ax.set_title(title or f"End stresses against the {name}", fontsize=10, y=1.0, pad=5)
     ax.legend(fontsize=7, loc="best", frameon=False)
     ax.grid(True, lw=0.3, alpha=0.6)
+    return figure
+
+
+# --------------------------------------------------------------------------------------------
+# Closed forms against the finite-element check
+
+
+def closed_form_against_fe(trust, system: str = "si", figure: Figure | None = None) -> Figure:
+    """Two panels from a :class:`bilayer.trust.TrustReport`: sigma_x through the thickness at mid-length
+    (closed form as lines, FE as dots) and interface shear and peel near the right-hand end (closed form
+    as lines, FE Gauss-point profiles as dots). ``figure`` is cleared and reused when given."""
+    if figure is None:
+        figure = new_figure(3.6)
+    else:
+        figure.clear()
+        figure.__dict__.pop("_bilayer_artists", None)
+    left, right = figure.subplots(1, 2, gridspec_kw={"width_ratios": [1, 1.4]})
+    engine, fe, interface = trust.engine, trust.fe, trust.interface
+    H = float(np.sum(fe.thicknesses))
+    z_unit = axis_unit("length", system, H)
+    every = np.concatenate([np.ravel(engine.stress_bottom), np.ravel(engine.stress_top), np.ravel(fe.stress)])
+    s_unit = axis_unit("stress", system, float(np.max(np.abs(every))) or None)
+    colours = material_colours(engine.materials)
+    for i in range(engine.n_layers):
+        left.axhspan(float(z_unit(engine.layer_bottom[i])), float(z_unit(engine.layer_top[i])),
+                     color=colours[engine.materials[i]], alpha=0.3, lw=0)
+        left.plot(s_unit([engine.stress_bottom[i], engine.stress_top[i]]),
+                  z_unit([engine.layer_bottom[i], engine.layer_top[i]]), color="black", lw=1.6,
+                  label="closed form" if i == 0 else None)
+    left.plot(s_unit(fe.stress), z_unit(fe.z), "o", color=PALETTE[5], ms=3, label=f"FE ({fe.plane})")
+    left.axvline(0.0, color="0.3", lw=0.6)
+    left.set_ylim(0, float(z_unit(H)))
+    left.set_xlabel(_axis_label("σx at mid-length", s_unit))
+    left.set_ylabel(_axis_label("height z", z_unit))
+    left.legend(fontsize=7, loc="best", frameon=False)
+    left.set_title("Through the thickness", fontsize=9)
+    half = 0.5 * fe.length
+    zone = min(half, 10.0 * max(p.parameters.decay_length for p in interface.interfaces))
+    d = zone * np.linspace(0.0, 1.0, 201) ** 1.5
+    d_unit = axis_unit("length", system, zone)
+    sampled = interface.sample(d, end="right")
+    fe_values = [np.concatenate([np.ravel(i.shear_profile), np.ravel(i.peel_profile)]) for i in fe.interfaces]
+    peak = max([float(np.max(np.abs(s[1]))) for s in sampled] + [float(np.max(np.abs(v))) for v in fe_values if v.size])
+    t_unit = axis_unit("stress", system, peak or None)
+    for k, ((_, shear, peel), fe_interface) in enumerate(zip(sampled, fe.interfaces)):
+        colour = PALETTE[(k * 5) % len(PALETTE)]
+        right.plot(d_unit(d), t_unit(shear), color=colour, lw=1.6, label=f"shear τ, interface {k + 1}")
+        if peel is not None:
+            right.plot(d_unit(d), t_unit(peel), color=colour, lw=1.2, ls="--", label=f"peel σz, interface {k + 1}")
+        x = np.asarray(fe_interface.x, float)
+        near = np.flatnonzero((x > half) & (fe.length - x <= zone))
+        near = near[:: max(1, near.size // 40)]  # about 40 FE points per curve, so the lines stay visible
+        right.plot(d_unit(fe.length - x[near]), t_unit(np.asarray(fe_interface.shear_profile)[near]), "o",
+                   color="black", mfc=colour, ms=3.5, mew=0.4, ls="", label=f"FE shear, interface {k + 1}")
+        right.plot(d_unit(fe.length - x[near]), t_unit(np.asarray(fe_interface.peel_profile)[near]), "^",
+                   color="black", mfc="white", ms=3.5, mew=0.6, ls="", label=f"FE peel, interface {k + 1}")
+    right.axhline(0.0, color="0.3", lw=0.6)
+    right.set_xlim(float(d_unit(zone)), 0.0)
+    right.set_xlabel(_axis_label("distance from the free end", d_unit))
+    right.set_ylabel(_axis_label("interface stress", t_unit))
+    right.legend(fontsize=6, loc="best", frameon=False)
+    right.set_title("Near the right-hand end (corner values are nominal)", fontsize=9)
+    for ax in (left, right):
+        ax.grid(True, lw=0.3, alpha=0.5)
+    figure.suptitle(f"Closed forms against the 2-D finite-element check ({fe.plane}, {fe.dofs} dofs)", fontsize=10)
     return figure

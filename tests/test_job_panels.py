@@ -394,3 +394,35 @@ def test_a_hidden_job_panel_still_answers_for_the_current_design(thermostat):
     explorer.show("stress")
     explorer.editor.rows[0].thickness.text.value = "0.3 mm"
     assert panel.report.to_text("si") == _direct_report(explorer.model.design).to_text("si")
+
+
+# ---------------------------------------------------------------------------------------------
+# Finite-element check (behind a button)
+
+
+def test_fe_check_runs_in_the_background_and_matches_beam_theory():
+    """A long strip (L/H = 20): 2-D plane-stress FE and the closed-form engine agree on the mid-length curvature
+    within 0.5 % (issue 3 acceptance check; independent FE on scikit-fem)."""
+    pytest.importorskip("skfem")
+    pytest.importorskip("bilayer.trust")
+    from bilayer.fe import MeshOptions
+    from bilayer.panels.fe_check_panel import MESHES
+    from bilayer.trust import trust_report
+
+    explorer = StackExplorer()
+    explorer.model.strip_length = 0.02
+    explorer.show("FE check")
+    panel = explorer.fe_check
+    panel.mesh.value = "coarse"
+    panel.refine.value = False
+    panel.run_button.click()
+    panel.thread.join(timeout=300)
+    assert panel.progress.value == 1.0 and panel.report is not None
+    curvature = panel.report.rows[0]
+    assert curvature.quantity == "curvature" and abs(curvature.difference) < 0.005
+    d = explorer.model.design
+    direct = trust_report(d.stack, d.temperatures, 0.02, d.state, mesh=MeshOptions(**MESHES["coarse"]), refine=False)
+    assert [r.fe for r in panel.report.rows] == [r.fe for r in direct.rows]
+    assert "within tolerance" in panel.status.value and panel.image.value[:4] == b"\x89PNG"
+    explorer.editor.operating.text.value = "150 degC"
+    assert "run it again" in panel.status.value

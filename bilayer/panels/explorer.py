@@ -9,6 +9,7 @@ import ipywidgets as widgets
 from ..stack import Design, Layer, Stack, Temperatures
 from ._base import DesignModel
 from .design_files import DesignFilePanel
+from .fe_check_panel import FECheckPanel
 from .interface_views import InterfaceView, RatioTradeoffView
 from .stack_editor import StackEditor
 from .views import ResultTable, ShapeView, SignConventionSketch, StressView, UnitSystemSwitch
@@ -65,7 +66,8 @@ class StackExplorer(widgets.VBox):
 
     Parts (attributes): ``model`` (the current design and result), ``editor``, ``units``,
     ``files``, ``table``, and the views ``stress``, ``shape``, ``interface``, ``tradeoff`` and
-    ``sketch`` in ``tabs``; job panels added with :meth:`add_view` appear as further tabs.
+    ``fe_check`` (closed forms against finite elements, behind a button) and ``sketch`` in ``tabs``;
+    job panels added with :meth:`add_view` appear as further tabs.
     """
 
     def __init__(self, design: Design | None = None, system: str = "si", path: str = "my_design.toml",
@@ -79,11 +81,13 @@ class StackExplorer(widgets.VBox):
         self.shape = ShapeView(self.model, active=False)
         self.interface = InterfaceView(self.model, active=False)
         self.tradeoff = RatioTradeoffView(self.model, active=False)
+        self.fe_check = FECheckPanel(self.model)
         self.sketch = SignConventionSketch()
         self.tabs = widgets.Tab()
         self._views: list[tuple[str, widgets.Widget]] = []
         for title, view in (("stress", self.stress), ("shape", self.shape), ("interface", self.interface),
-                            ("thickness ratio", self.tradeoff), ("conventions", self.sketch)):
+                            ("thickness ratio", self.tradeoff), ("FE check", self.fe_check),
+                            ("conventions", self.sketch)):
             self.add_view(title, view)
         self.jobs = {}
         for job in dict.fromkeys((*jobs, *(name for name in JOB_PANELS if name in self.model.design.sections))):
