@@ -1,9 +1,10 @@
-"""One real-browser test: the start notebook in JupyterLab, driven by Debian's headless Chromium.
+"""Real-browser tests: the notebooks in JupyterLab, driven by Debian's headless Chromium.
 
 JupyterLab serves a temporary copy of notebooks/ on 127.0.0.1 with isolated Jupyter, matplotlib and
-browser state; Playwright drives /usr/bin/chromium (no browser download). The test runs all cells,
-types a new operating temperature into the stack editor, and checks that the stress figure changed.
-Screenshots go to $BILAYER_ARTIFACTS (default test-artifacts/).
+browser state; Playwright drives /usr/bin/chromium (no browser download). The start-notebook test runs
+all cells, types a new operating temperature into the stack editor, checks that the stress figure
+changed, then runs the finite-element check from its button. The job-notebook test does the same for
+each job panel with one of its entries. Screenshots go to $BILAYER_ARTIFACTS (default test-artifacts/).
 """
 from __future__ import annotations
 
@@ -39,7 +40,14 @@ ALL_RUN = """n => {
         .map(e => e.textContent.trim());
     return p.length === n && p.every(t => /^\\[\\d+\\]:$/.test(t)); }"""
 STRESS_IMAGE = "img.bilayer-stress-figure"
-STRESS_SRC = f"() => document.querySelector('{STRESS_IMAGE}')?.src || ''"
+
+
+def image_source(selector: str) -> str:
+    """JavaScript returning the src of the first image matching ``selector`` (a blob: or data: URL)."""
+    return f"() => document.querySelector('{selector}')?.src || ''"
+
+
+STRESS_SRC = image_source(STRESS_IMAGE)
 
 
 def _free_port() -> int:
@@ -190,5 +198,53 @@ def test_start_notebook_reacts_to_a_typed_temperature(lab_server, browser):
         figure.scroll_into_view_if_needed()
         page.screenshot(path=str(ARTIFACTS / "start_here_after.png"))
         figure.screenshot(path=str(ARTIFACTS / "start_here_stress_figure_after.png"))
+    finally:
+        page.close()
+
+
+def test_start_notebook_runs_the_fe_check_behind_its_button(lab_server, browser):
+    pytest.importorskip("skfem")
+    page = browser.new_page(viewport={"width": 1400, "height": 1000})
+    try:
+        open_and_run_all(page, lab_server, "start_here.ipynb")
+        page.locator(".lm-TabBar-tab, .widget-tab .p-TabBar-tab", has_text="FE check").first.click()
+        page.locator("button.bilayer-fe-run").first.click()
+        figure = page.locator("img.bilayer-fe-figure").first
+        figure.wait_for(state="visible", timeout=180_000)
+        page.wait_for_function("() => [...document.querySelectorAll('.widget-html')].some("
+                               "e => /dofs/.test(e.textContent))", timeout=180_000)
+        settle(page, image_source("img.bilayer-fe-figure"))
+        figure.scroll_into_view_if_needed()
+        page.screenshot(path=str(ARTIFACTS / "start_here_fe_check.png"))
+    finally:
+        page.close()
+
+
+JOB_NOTEBOOKS = [
+    ("thermostat.ipynb", "thermostat", "length", "35 mm"),
+    ("solder_joint.ipynb", "solder_joint", "dnp", "9 mm"),
+    ("adhesive_bond.ipynb", "adhesive_bond", "overlap", "30 mm"),
+    ("film_on_wafer.ipynb", "film", "substrate_biaxial_modulus", "150 GPa"),
+]
+
+
+@pytest.mark.parametrize("notebook, section, field, value", JOB_NOTEBOOKS, ids=[n for n, *_ in JOB_NOTEBOOKS])
+def test_job_panel_reacts_to_a_typed_entry(lab_server, browser, notebook, section, field, value):
+    page = browser.new_page(viewport={"width": 1400, "height": 1000})
+    try:
+        open_and_run_all(page, lab_server, notebook)
+        selector = f"img.bilayer-{section}-figure"
+        figure = page.locator(selector).first
+        figure.wait_for(state="visible", timeout=60_000)
+        before = settle(page, image_source(selector))
+        entry = page.locator(f".bilayer-field-{field} input").first
+        entry.scroll_into_view_if_needed()
+        entry.fill(value)
+        entry.press("Enter")
+        after = settle(page, image_source(selector))
+        assert after != before, f"the {section} figure did not change after {field} = {value!r}"
+        assert entry.input_value() == value
+        figure.scroll_into_view_if_needed()
+        page.screenshot(path=str(ARTIFACTS / f"{notebook.removesuffix('.ipynb')}_after.png"))
     finally:
         page.close()

@@ -38,6 +38,8 @@ class FECheckPanel(widgets.VBox):
         self.status = widgets.HTML()
         self.image = FigureImage(3.6, {"left": 0.08, "right": 0.98, "bottom": 0.15, "top": 0.85, "wspace": 0.3})
         self.image.layout.display = "none"
+        self.image.add_class("bilayer-fe-figure")
+        self.run_button.add_class("bilayer-fe-run")
         self.table = widgets.HTML()
         self.thread: threading.Thread | None = None
         self.report = None

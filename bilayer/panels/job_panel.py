@@ -44,6 +44,7 @@ class JobPanel(View):
         self.form = SectionForm(self.section, self.fields, model.system, self.labels, on_change=self.entries_changed)
         self.message = widgets.HTML()
         self.image = FigureImage(self.height, self.margins)
+        self.image.add_class(f"bilayer-{self.section}-figure")
         self.ax = self.image.figure.add_subplot()
         self.summary = widgets.HTML()
         self.result = None

@@ -42,6 +42,10 @@ class _Entry:
             self.quantity = QuantityField(label, field.kind, field.name, 0.0, system, width="22em", tooltip=tooltip)
             self.widget = self.quantity.text
             self.set(field.default, system)
+        self.widget.add_class(f"bilayer-field-{field.name}")  # a stable handle for browser tests
+        if field.kind != "boolean":  # labels in one column, entries aligned beside them
+            self.widget.style.description_width = "17em"
+            self.widget.layout.width = "34em"
 
     def get(self):
         field = self.field
