@@ -264,7 +264,7 @@ class _Solution:
         for k in range(basis.Nbfun):
             field = basis.elem.gbasis(basis.mapping, local, k, tind=cells)[0]
             coefficient = self.u[dofs[k]]
-            value += field.value[:, :, 0] * coefficient
+            value += np.asarray(field)[:, :, 0] * coefficient
             grad += field.grad[:, :, :, 0] * coefficient
         return value, grad
 

@@ -49,6 +49,8 @@ class TrustRow:
     scale: float  # reference magnitude of the difference (largest |value| of the group)
     kind: str  # unit kind of bilayer.units ("curvature", "stress", "force_per_width", "length")
     tolerance: float | None  # None: informative only
+    distance: float | None = None  # distance from the end of a shear or peel sample [m]
+    location: str = ""  # ``where`` without the distance (faces that format the distance themselves)
 
     @property
     def difference(self) -> float:
@@ -62,7 +64,7 @@ class TrustRow:
         return {
             "quantity": self.quantity, "where": self.where, "closed_form": self.closed_form, "fe": self.fe,
             "scale": self.scale, "difference": self.difference, "tolerance": self.tolerance, "ok": self.ok,
-            "kind": self.kind,
+            "kind": self.kind, "distance": self.distance, "location": self.location or self.where,
         }
 
 
@@ -185,6 +187,8 @@ def trust_report(
 
 
 def _rows(engine, interface, fe, distances, length) -> list[TrustRow]:
+    from .units import format as show
+
     rows = []
     kappa = float(engine.curvature)
     rows.append(TrustRow("curvature", "mid-length", kappa, fe.curvature, abs(kappa), "curvature", TOLERANCE))
@@ -209,18 +213,15 @@ def _rows(engine, interface, fe, distances, length) -> list[TrustRow]:
         mid_force = float(profile.parameters.force_and_shear(np.array([0.0]), half)[0][0])
         rows.append(TrustRow("force below interface", f"{name}, mid-length", mid_force, fe_line.force_below,
                              abs(mid_force), "force_per_width", None))
-        rows.append(TrustRow("FE equilibrium", f"{name}: int tau from mid-length to the end vs force below",
+        rows.append(TrustRow("FE equilibrium", f"{name}, int tau mid-length to end vs force below",
                              fe_line.force_below, fe_line.shear_integral, abs(fe_line.force_below),
                              "force_per_width", EQUILIBRIUM_TOLERANCE))
-        shear_scale = float(np.max(np.abs(shear))) or 1.0
-        for d, cf, value in zip(distances, shear, fe_line.shear):
-            rows.append(TrustRow("shear", f"{name}, {d:.4g} m from the end", float(cf), float(value),
-                                 shear_scale, "stress", None))
-        if peel is not None:
-            peel_scale = float(np.max(np.abs(peel))) or 1.0
-            for d, cf, value in zip(distances, peel, fe_line.peel):
-                rows.append(TrustRow("peel", f"{name}, {d:.4g} m from the end", float(cf), float(value),
-                                     peel_scale, "stress", None))
+        groups = [("shear", shear, fe_line.shear)] + ([("peel", peel, fe_line.peel)] if peel is not None else [])
+        for quantity, closed, computed in groups:
+            scale = float(np.max(np.abs(closed))) or 1.0
+            for d, cf, value in zip(distances, closed, computed):
+                rows.append(TrustRow(quantity, f"{show(d, 'length')} from the end, {name}", float(cf), float(value),
+                                     scale, "stress", None, float(d), name))
     return rows
 
 
@@ -230,8 +231,8 @@ def _flags(stack, temperatures, length, state, compared, engine, interface, fe, 
     ratio = length / H
     if ratio < 10.0:
         flags.append(TrustFlag("short_strip", "warning", (
-            f"the strip is only {ratio:.3g} total thicknesses long (< 10): the end zones reach mid-length and "
-            "beam-theory curvature and stresses are not reliable; use the FE values")))
+            f"the strip is only {ratio:.3g} total thicknesses long (< 10): the end zones may reach mid-length, "
+            "where beam theory then no longer holds; go by the FE rows")))
     for profile in interface.interfaces:
         p = profile.parameters
         zone = 3.0 * max(p.decay_length, p.peel_decay_length if p.bending else 0.0)
