@@ -556,8 +556,8 @@ def interface_stresses(
                                               label=f"peel σz, {name}")[0]
         ax.axhline(0.0, color="0.2", lw=0.8)
         marker = ax.axvline(0.0, color="0.4", ls=":", lw=1.0, visible=False)
-        marker_text = ax.text(0.0, 0.02, " 3/k", transform=ax.get_xaxis_transform(), fontsize=7, color="0.3",
-                              visible=False)
+        marker_text = ax.text(0.0, 0.97, " 3/k", transform=ax.get_xaxis_transform(), fontsize=7, color="0.3",
+                              va="top", visible=False)
         note_text = ax.text(0.01, 0.02, "", transform=ax.transAxes, ha="left", va="bottom", fontsize=7, color="0.3")
         ax.legend(fontsize=7, loc="upper left", frameon=False)
         ax.grid(True, lw=0.3, alpha=0.6)

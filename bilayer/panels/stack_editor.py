@@ -350,6 +350,8 @@ class StackEditor(widgets.VBox):
         operating = self.model.design.temperatures.operating
         several = bool(np.ndim(operating))
         self.operating_slider.disabled = several
+        self.operating_slider.layout.display = "none" if several else ""
+        self.slider_unit.layout.display = "none" if several else ""
         self.case.layout.display = "" if several else "none"
         self.slider_unit.value = "°C" if self.model.system == "si" else "°F"
         if several:
