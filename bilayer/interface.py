@@ -74,6 +74,7 @@ __all__ = [
     "shear_lag",
     "peel_compliant",
     "resolve_bonds",
+    "soft_inner_layers",
     "ASSUMPTIONS",
 ]
 
@@ -98,6 +99,8 @@ THICK_BOND_RATIO = 0.25
 """Bond thickness over the thinner adjacent part above which shear is no longer uniform across it."""
 BOND_STIFFNESS_SHARE = 0.05
 """Share of the stack's axial rigidity in a bond layer above which neglecting it is noticeable."""
+SOFT_LAYER_RATIO = 0.05
+"""Shear modulus of an inner layer over its stiffer neighbour's below which it should be a bond layer."""
 
 
 def _unit_shape(xi, half_length, rate):
@@ -293,6 +296,15 @@ def resolve_bonds(stack: Stack, bonds) -> tuple[int, ...]:
         if second == first + 1:
             raise InputError("bonds", [first, second], "bond layers that do not touch each other")
     return tuple(indices)
+
+
+def soft_inner_layers(stack: Stack, bonds=()) -> list[int]:
+    """Inner layers (not bonds) whose shear modulus is below SOFT_LAYER_RATIO of the stiffer neighbour's."""
+    G = [layer.material.shear_modulus for layer in stack.layers]
+    return [
+        i for i in range(1, stack.n_layers - 1)
+        if i not in bonds and G[i] < SOFT_LAYER_RATIO * max(G[i - 1], G[i + 1])
+    ]
 
 
 def _layer_properties(stack: Stack, temperatures: Temperatures, state: BendingState):
@@ -671,6 +683,11 @@ def _warnings(stack: Stack, length: float, params: Sequence[InterfaceParameters]
                     f"{where}: nearly incompressible bond (nu = {bond_material.poisson_ratio:g}): its "
                     "through-thickness compliance h0/E' overstates the peel compliance of a constrained bond line"
                 )
+    for i in soft_inner_layers(stack, {p.bond for p in params}):
+        messages.append(
+            f"layer {i + 1} is much softer in shear than its neighbours but is not a bond layer: the model "
+            f"treats it as perfectly bonded inside a composite part; name it a bond (bonds=[{i}]) for its shear lag"
+        )
     if state is BendingState.PLATE:
         messages.append(
             "plate state: the 1-D interface model with E/(1-nu) approximates the edge of an equal-biaxial "

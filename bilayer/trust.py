@@ -226,6 +226,8 @@ def _rows(engine, interface, fe, distances, length) -> list[TrustRow]:
 
 
 def _flags(stack, temperatures, length, state, compared, engine, interface, fe, study, rows, width) -> list[TrustFlag]:
+    from .interface import soft_inner_layers
+
     flags = []
     H = stack.total_thickness
     ratio = length / H
@@ -260,6 +262,10 @@ def _flags(stack, temperatures, length, state, compared, engine, interface, fe, 
                 flags.append(TrustFlag("soft_bond", "warning", (
                     f"{profile.name}: nearly incompressible bond (nu = {bond.poisson_ratio:g}): the peel "
                     "compliance h0/E' overstates the compliance of a constrained bond line; trust FE peel")))
+    for i in soft_inner_layers(stack, interface.bonds):
+        flags.append(TrustFlag("soft_inner_layer", "warning", (
+            f"layer {i + 1} is much softer in shear than its neighbours but is not a bond layer: inside a composite "
+            "part it is taken as perfectly bonded, which misplaces the shear transfer; name it a bond layer")))
     if state is BendingState.PLATE:
         from .stack import evaluate
 
