@@ -24,7 +24,6 @@ over the elements that touch it (both sides of an interface).
 """
 from __future__ import annotations
 
-import math
 import time
 from dataclasses import dataclass, replace
 from typing import Callable, Sequence
@@ -295,7 +294,8 @@ class _Solution:
         return total / 4.0
 
 
-def _check_inputs(stack, temperatures, length, state, distances):
+def check_strip_inputs(stack, temperatures, length, state, distances):
+    """Validated (length, state, distances) of an FE run; default distances cut to those short of mid-length."""
     if not isinstance(stack, Stack):
         raise InputError("stack", stack, "a Stack")
     if not isinstance(temperatures, Temperatures):
@@ -336,7 +336,7 @@ def fe_check(
     and 1 times the total thickness, those short of mid-length); ``heights`` [m] where they are
     sampled (default: every interface). ``progress(fraction, message)`` is called as the run advances.
     """
-    length, state, distances = _check_inputs(stack, temperatures, length, state, distances)
+    length, state, distances = check_strip_inputs(stack, temperatures, length, state, distances)
     if not isinstance(mesh, MeshOptions):
         raise InputError("mesh", mesh, "a MeshOptions")
     report = progress or (lambda fraction, message: None)

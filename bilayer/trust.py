@@ -157,13 +157,13 @@ def trust_report(
     compares on the finer one; ``distances`` [m] from the end where shear and peel are compared;
     ``width`` [m] (optional) lets the report judge the bending-state choice.
     """
-    from .fe import MeshOptions, _check_inputs, fe_check, refinement_study
+    from .fe import MeshOptions, check_strip_inputs, fe_check, refinement_study
     from .interface import interface_stresses
     from .stack import evaluate
 
     state = BendingState.parse(state)
     compared = BendingState.WIDE if state is BendingState.PLATE else state
-    length, _, distances = _check_inputs(stack, temperatures, length, compared, distances)
+    length, _, distances = check_strip_inputs(stack, temperatures, length, compared, distances)
     if width is not None:
         from .errors import check_range
 
@@ -179,7 +179,7 @@ def trust_report(
         study = None
         fe = fe_check(stack, temperatures, length, compared, mesh, distances, heights, progress)
     rows = _rows(engine, interface, fe, distances, length)
-    flags = _flags(stack, temperatures, length, state, compared, engine, interface, fe, study, rows, width)
+    flags = _flags(stack, temperatures, length, state, compared, engine, interface, study, rows, width)
     return TrustReport(
         state=state, compared_state=compared, length=length, labels=stack.labels, engine=engine,
         interface=interface, fe=fe, refinement=study, rows=tuple(rows), flags=tuple(flags),
@@ -225,7 +225,7 @@ def _rows(engine, interface, fe, distances, length) -> list[TrustRow]:
     return rows
 
 
-def _flags(stack, temperatures, length, state, compared, engine, interface, fe, study, rows, width) -> list[TrustFlag]:
+def _flags(stack, temperatures, length, state, compared, engine, interface, study, rows, width) -> list[TrustFlag]:
     from .interface import soft_inner_layers
 
     flags = []
