@@ -285,13 +285,14 @@ class _Solution:
     def averaged_stress(self, x, z, step_x: float, step_z: float) -> np.ndarray:
         """Stress at (x, z) averaged over the elements touching the point (up to four)."""
         x, z = np.ravel(x), np.ravel(z)
+        shifts_x = (-step_x, step_x) if step_x else (0.0,)
         total = 0.0
         for dz in (-step_z, step_z):
             zz = z + dz
             layer = np.clip(np.searchsorted(self.layer_top, zz), 0, len(self.layer_top) - 1)
-            for dx in (-step_x, step_x):
+            for dx in shifts_x:
                 total = total + self.stress(x + dx, zz, layer)
-        return total / 4.0
+        return total / (2.0 * len(shifts_x))
 
 
 def check_strip_inputs(stack, temperatures, length, state, distances):
