@@ -15,16 +15,21 @@ NOTEBOOK = Path(__file__).resolve().parent.parent / "notebooks" / "start_here.ip
 
 EXPORT = """
 from pathlib import Path as _Path
-import re as _re, html as _html
+from bilayer.cautions import cautions_text as _cautions
 _out = _Path({out!r})
 for _name in ("stress", "shape", "interface", "tradeoff"):
     _view = getattr(explorer, _name)
     _view.redraw()
-    _figure = getattr(_view, "figure", None) or _view.image.figure
-    _figure.savefig(_out / f"{{_name}}.png")
+    _view.image.figure.savefig(_out / f"{{_name}}.png")
 explorer.sketch.image.figure.savefig(_out / "sign_convention.png")
-print(explorer.model.design.name or "design")
-print(_html.unescape(_re.sub(r"<(br|tr|li)[^>]*>", "\\n", _re.sub(r"</t[dh]>", "  ", explorer.table.html.value))).replace("</tr>", ""))
+_shown, _design = explorer.table.shown, explorer.model.design
+print(_design.name or "design")
+print(f"{{_shown['state']}} bending state, temperature change {{_shown['temperature_change']:.4g}} K, "
+      f"curvature {{_shown['curvature']:.5g}} 1/m")
+for _i, (_b, _t) in enumerate(zip(_shown["stress_bottom"], _shown["stress_top"])):
+    print(f"  layer {{_i + 1}} ({{_design.stack.labels[_i]}}): stress {{_b / 1e6:.4g}} MPa at the bottom face, "
+          f"{{_t / 1e6:.4g}} MPa at the top face")
+print(_cautions())
 """
 
 
