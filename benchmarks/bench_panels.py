@@ -26,7 +26,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 import numpy as np  # noqa: E402
 
 from bilayer import plots  # noqa: E402
-from bilayer.panels import FigureImage, StackExplorer  # noqa: E402
+from bilayer.panels import JOB_PANELS, FigureImage, StackExplorer  # noqa: E402
 
 TARGET_MS = 30.0
 
@@ -91,7 +91,40 @@ def main() -> int:
         print(f"  view '{tab}':{' ' * (16 - len(tab))}{median:8.2f} ms (p90 {p90:7.2f})  "
               f"ratio to baseline {median / base:5.2f}  {verdict}")
     print(f"target: closed-form views (stress, shape, interface) median < {TARGET_MS:.0f} ms")
+    print("job panels, entry typed -> job report and figure redrawn (no target; each runs the job's full check):")
+    for name, median, p90 in job_panels(max(8, args.repeats // 4)):
+        print(f"  {name:<16}{median:8.2f} ms (p90 {p90:7.2f})  ratio to baseline {median / base:5.2f}")
     return 1 if failed else 0
+
+
+EXAMPLES = Path(__file__).resolve().parent.parent / "examples"
+JOBS = (
+    ("thermostat", "propagator_heat_mat_cutout.toml", "length", "{:g} mm", 25.0),
+    ("solder_joint", "irrigation_timer_chip_carrier.toml", "dnp", "{:g} mm", 5.0),
+    ("adhesive_bond", "tank_gauge_glass_strip.toml", "overlap", "{:g} mm", 60.0),
+    ("film", "nitride_on_wafer.toml", "bow_after", "-{:g} um", 25.0),
+)
+
+
+def job_panels(repeats: int):
+    """Median and p90 [ms] of one typed entry per job panel, on the shipped invented examples."""
+    from bilayer.design_file import load_design
+
+    rows = []
+    for section, example, field, pattern, start in JOBS:
+        path = EXAMPLES / example
+        if not path.exists():
+            continue
+        explorer = StackExplorer(load_design(path))
+        explorer.show(JOB_PANELS[section][0])
+        entry = explorer.jobs[section].form[field]
+        values = [pattern.format(start * (1 + 0.002 * k)) for k in range(repeats + 3)]
+
+        def typed(text, entry=entry):
+            entry.value = text
+
+        rows.append((section, *median_ms(typed, values)))
+    return rows
 
 
 if __name__ == "__main__":
