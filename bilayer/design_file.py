@@ -27,13 +27,13 @@ import json
 import math
 import os
 import re
-import tempfile
 import warnings
 from dataclasses import dataclass, field
 from pathlib import Path
 from typing import Any, Mapping
 
 from .errors import DesignFileError, InputError, SuspiciousInputWarning
+from .files import write_text_atomic
 from .sections import Location, job_sections, section, sections, suggest
 from .sections.spec import _hint_of
 
@@ -388,35 +388,6 @@ def save_design(design: Any, path: "str | os.PathLike", results: Any = None, sys
     and the temporary file removed.
     """
     return write_text_atomic(path, design_to_text(design, results, system, library, extra))
-
-
-def write_text_atomic(path: "str | os.PathLike", text: str) -> Path:
-    """Write ``text`` to ``path`` through a temporary file in the same directory, fsync and os.replace."""
-    path = Path(path)
-    handle, temporary = tempfile.mkstemp(dir=path.parent if str(path.parent) else ".", prefix=f".{path.name}.",
-                                         suffix=".tmp")
-    try:
-        with os.fdopen(handle, "w", encoding="utf-8", newline="\n") as stream:
-            stream.write(text)
-            stream.flush()
-            os.fsync(stream.fileno())
-        os.chmod(temporary, _file_mode(path))
-        os.replace(temporary, path)
-    except BaseException:
-        if os.path.exists(temporary):
-            os.unlink(temporary)
-        raise
-    return path
-
-
-def _file_mode(path: Path) -> int:
-    """Keep the mode of the file being replaced; a new file gets 0o666 less the umask."""
-    try:
-        return path.stat().st_mode & 0o7777
-    except OSError:
-        umask = os.umask(0)
-        os.umask(umask)
-        return 0o666 & ~umask
 
 
 # --- a small TOML writer (tables and arrays of tables in our order, no inline tables) --------------

@@ -2,9 +2,9 @@
 from __future__ import annotations
 
 import argparse
-import json
 import math
-import sys
+
+from .job_output import add_file_arguments, run_assessment
 
 NAME = "bond"
 HELP = "check the adhesive joint of a design file: end shear and peel, Tg, allowables, sweeps"
@@ -16,23 +16,13 @@ DESCRIPTION = (
 
 
 def add_arguments(parser: argparse.ArgumentParser) -> None:
-    parser.add_argument("file", help="design file with an [adhesive_bond] section")
-    parser.add_argument("--units", choices=("si", "us"), default="si", help="display units (default si)")
-    parser.add_argument("--json", action="store_true", help="print JSON with SI values instead of text")
+    add_file_arguments(parser, "adhesive_bond")
 
 
 def run(args: argparse.Namespace) -> int:
     from ..adhesive import assess_adhesive_design
-    from ..design_file import read_design
 
-    document = read_design(args.file)
-    assessment = assess_adhesive_design(document.design)
-    if args.json:
-        data = {"design_name": document.design.name, **assessment.to_dict()}
-        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False) + "\n")
-    else:
-        sys.stdout.write(report(document.design, assessment, args.units, document.source) + "\n")
-    return 0
+    return run_assessment(args, assess_adhesive_design, report)
 
 
 def _stress(value: float, system: str) -> str:

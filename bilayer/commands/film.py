@@ -2,10 +2,10 @@
 from __future__ import annotations
 
 import argparse
-import json
-import sys
 
 import numpy as np
+
+from .job_output import add_file_arguments, run_assessment
 
 NAME = "film"
 HELP = "film on a substrate from a design file: thermal stress and bow, stress from measured bow, two-substrate fit"
@@ -18,23 +18,13 @@ DESCRIPTION = (
 
 
 def add_arguments(parser: argparse.ArgumentParser) -> None:
-    parser.add_argument("file", help="design file with a [film] section")
-    parser.add_argument("--units", choices=("si", "us"), default="si", help="display units (default si)")
-    parser.add_argument("--json", action="store_true", help="print JSON with SI values instead of text")
+    add_file_arguments(parser, "film")
 
 
 def run(args: argparse.Namespace) -> int:
-    from ..design_file import read_design
     from ..films import assess_film_design
 
-    document = read_design(args.file)
-    assessment = assess_film_design(document.design)
-    if args.json:
-        data = {"design_name": document.design.name, **assessment.to_dict()}
-        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False) + "\n")
-    else:
-        sys.stdout.write(report(document.design, assessment, args.units, document.source) + "\n")
-    return 0
+    return run_assessment(args, assess_film_design, report)
 
 
 def report(design, assessment, system: str = "si", source: str = "") -> str:

@@ -2,10 +2,10 @@
 from __future__ import annotations
 
 import argparse
-import json
-import sys
 
 import numpy as np
+
+from .job_output import add_file_arguments, run_assessment
 
 NAME = "solder"
 HELP = "screen the solder joint of a design file: DNP strain, Engelmaier life, acceleration, warpage"
@@ -17,23 +17,13 @@ DESCRIPTION = (
 
 
 def add_arguments(parser: argparse.ArgumentParser) -> None:
-    parser.add_argument("file", help="design file with a [solder_joint] section")
-    parser.add_argument("--units", choices=("si", "us"), default="si", help="display units (default si)")
-    parser.add_argument("--json", action="store_true", help="print JSON with SI values instead of text")
+    add_file_arguments(parser, "solder_joint")
 
 
 def run(args: argparse.Namespace) -> int:
-    from ..design_file import read_design
     from ..solder import assess_solder_design
 
-    document = read_design(args.file)
-    assessment = assess_solder_design(document.design)
-    if args.json:
-        data = {"design_name": document.design.name, **assessment.to_dict()}
-        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False) + "\n")
-    else:
-        sys.stdout.write(report(document.design, assessment, args.units, document.source) + "\n")
-    return 0
+    return run_assessment(args, assess_solder_design, report)
 
 
 def _cycle_text(cycle, system: str) -> str:

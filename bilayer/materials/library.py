@@ -32,6 +32,7 @@ from types import MappingProxyType
 from typing import Iterable, Iterator, Mapping
 
 from ..errors import DesignFileError, InputError, UnknownMaterialError
+from ..files import write_text_atomic
 from .cte import (
     KELVIN_OFFSET,
     CTEModel,
@@ -451,8 +452,6 @@ def _toml_table(lines: list[str], header: str, table: Mapping) -> None:
 def write_material_file(path: str | os.PathLike, materials: Iterable[Material],
                         citations: Mapping[str, str] | None = None) -> Path:
     """Write materials to a TOML material file atomically (temporary file, then rename)."""
-    import tempfile
-
     lines = ["# bilayer material file: SI units (Pa, 1/K, kg/m^3), temperatures in kelvin", ""]
     if citations:
         _toml_table(lines, "sources", dict(citations))
@@ -461,17 +460,7 @@ def write_material_file(path: str | os.PathLike, materials: Iterable[Material],
         if not re.fullmatch(r"[A-Za-z0-9_\-]+", key):
             raise InputError("key", key, "letters, digits, '_' and '-' only")
         _toml_table(lines, f"materials.{key}", material_to_table(material))
-    path = Path(path)
-    handle, temporary = tempfile.mkstemp(dir=path.parent, prefix=f".{path.name}.", suffix=".tmp")
-    try:
-        with os.fdopen(handle, "w", encoding="utf-8") as stream:
-            stream.write("\n".join(lines))
-        os.replace(temporary, path)
-    except BaseException:
-        if os.path.exists(temporary):
-            os.unlink(temporary)
-        raise
-    return path
+    return write_text_atomic(path, "\n".join(lines))
 
 
 # --- module-level helpers ----------------------------------------------------------------------------
