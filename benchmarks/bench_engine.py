@@ -18,16 +18,11 @@ import numpy as np
 
 os.environ.setdefault("OMP_NUM_THREADS", "1")
 
+from timing import best_of  # noqa: E402  (benchmarks/timing.py)
+
 from bilayer import laminate  # noqa: E402
 
 
-def best_of(fn, repeat=5):
-    times = []
-    for _ in range(repeat):
-        start = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - start)
-    return min(times)
 
 
 def two_layer(n=2_000_000):

@@ -11,24 +11,18 @@ Run: python benchmarks/bench_interface.py
 from __future__ import annotations
 
 import os
-import time
 
 import numpy as np
 
 os.environ.setdefault("OMP_NUM_THREADS", "1")
+
+from timing import best_of  # noqa: E402  (benchmarks/timing.py)
 
 import bilayer as bl  # noqa: E402
 from bilayer.interface import interface_parameters, interface_stresses  # noqa: E402
 from bilayer.materials import Material  # noqa: E402
 
 
-def best_of(fn, repeat=200):
-    times = []
-    for _ in range(repeat):
-        start = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - start)
-    return min(times)
 
 
 def main(points=1000):
@@ -49,9 +43,9 @@ def main(points=1000):
         params.peel(xi, half)
         params.peel_common_deflection(xi, half)
 
-    t_profiles = best_of(profiles)
-    t_copy = best_of(lambda: xi.copy())
-    t_exp = best_of(lambda: np.exp(xi))
+    t_profiles = best_of(profiles, repeat=200)
+    t_copy = best_of(lambda: xi.copy(), repeat=200)
+    t_exp = best_of(lambda: np.exp(xi), repeat=200)
     print(f"closed-form profiles (force, shear, peel with and without through-thickness compliance), "
           f"{points} points: {t_profiles * 1e3:.3f} ms; target < 1 ms: {'met' if t_profiles < 1e-3 else 'NOT met'}")
     print(f"  ratio to a memory copy of the {points}-point array: {t_profiles / t_copy:.0f}x; "

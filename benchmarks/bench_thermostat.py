@@ -17,6 +17,8 @@ import numpy as np
 
 os.environ.setdefault("OMP_NUM_THREADS", "1")
 
+from timing import best_of  # noqa: E402  (benchmarks/timing.py)
+
 import bilayer as bl  # noqa: E402
 from bilayer.thermostat import ThermalElement, closing_temperature, gap_for_set_point, response  # noqa: E402
 from bilayer.thermostat_elements import Cantilever  # noqa: E402
@@ -26,13 +28,6 @@ from bilayer.tolerance import Tolerance, first_order_set_point, monte_carlo_set_
 T0 = 293.15
 
 
-def best_of(fn, repeat=5):
-    times = []
-    for _ in range(repeat):
-        start = time.perf_counter()
-        fn()
-        times.append(time.perf_counter() - start)
-    return min(times)
 
 
 def element():
