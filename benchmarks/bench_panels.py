@@ -97,7 +97,7 @@ def main() -> int:
     return 1 if failed else 0
 
 
-EXAMPLES = Path(__file__).resolve().parent.parent / "examples"
+EXAMPLES = Path(__file__).resolve().parent.parent / "bilayer" / "examples"
 JOBS = (
     ("thermostat", "propagator_heat_mat_cutout.toml", "length", "{:g} mm", 25.0),
     ("solder_joint", "irrigation_timer_chip_carrier.toml", "dnp", "{:g} mm", 5.0),

@@ -151,7 +151,7 @@ def test_bad_inputs_name_the_field():
 def _example_path():
     from pathlib import Path
 
-    return Path(__file__).resolve().parent.parent / "examples" / "tank_gauge_glass_strip.toml"
+    return Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "tank_gauge_glass_strip.toml"
 
 
 def test_example_design_runs_and_matches_direct_calls():

@@ -228,7 +228,7 @@ def test_two_substrate_bad_input():
 def _example_path():
     from pathlib import Path
 
-    return Path(__file__).resolve().parent.parent / "examples" / "nitride_on_wafer.toml"
+    return Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "nitride_on_wafer.toml"
 
 
 def test_thermal_film_stress_matches_stoney_in_the_thin_limit():

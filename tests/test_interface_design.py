@@ -14,7 +14,7 @@ from bilayer.interface_design import check_temperature, interface_for_design, tr
 from bilayer.stack import Temperatures
 from bilayer.units import format as show
 
-EXAMPLE = Path(__file__).parents[1] / "examples" / "sensor_die_on_alumina.toml"
+EXAMPLE = Path(__file__).parents[1] / "bilayer" / "examples" / "sensor_die_on_alumina.toml"
 
 TEXT = """
 format_version = 1

@@ -44,7 +44,7 @@ from bilayer.thermostat import THERMOSTAT_CAUTIONS
 
 ROOT = Path(__file__).resolve().parent.parent
 FORMAT1 = Path(__file__).parent / "data" / "record_format1.toml"
-EXAMPLE = ROOT / "examples" / "hive_entrance_strip.record.toml"
+EXAMPLE = ROOT / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 
 # Two constant-CTE materials (demo values, invented) so Timoshenko's closed form applies exactly.
 LOW = Material("demo low-expansion metal", 150e9, 0.3, 1.5e-6, key="demo_low",

@@ -27,7 +27,7 @@ from bilayer.report import equations, report_html  # noqa: E402
 from bilayer.thermostat import THERMOSTAT_CAUTIONS  # noqa: E402
 from bilayer.units import format as format_quantity  # noqa: E402
 
-EXAMPLE = Path(__file__).resolve().parent.parent / "examples" / "hive_entrance_strip.record.toml"
+EXAMPLE = Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 FORMAT1 = Path(__file__).parent / "data" / "record_format1.toml"
 
 

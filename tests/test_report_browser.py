@@ -15,7 +15,7 @@ import pytest
 pytestmark = pytest.mark.browser
 
 ROOT = Path(__file__).resolve().parent.parent
-EXAMPLE = ROOT / "examples" / "hive_entrance_strip.record.toml"
+EXAMPLE = ROOT / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 CHROMIUM = Path("/usr/bin/chromium")
 ARTIFACTS = Path(os.environ.get("BILAYER_ARTIFACTS", ROOT / "test-artifacts"))
 CHROMIUM_ARGS = [

@@ -19,7 +19,7 @@ from bilayer.panels.review import ReviewPanel  # noqa: E402
 from bilayer.record_check import check_record, input_differences  # noqa: E402
 from bilayer.records import read_record, verify_review_log  # noqa: E402
 
-EXAMPLE = Path(__file__).resolve().parent.parent / "examples" / "hive_entrance_strip.record.toml"
+EXAMPLE = Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 
 
 @pytest.fixture

@@ -3,6 +3,7 @@
 Each check names its source. Hand calculations are written out with ``math`` in the test itself.
 """
 import math
+from pathlib import Path
 import warnings
 
 import pytest
@@ -249,7 +250,7 @@ def test_warpage_needs_a_stress_free_temperature():
 
 
 # ------------------------------------------------------------------------ design file and command
-EXAMPLE = "examples/irrigation_timer_chip_carrier.toml"
+EXAMPLE = str(Path(__file__).resolve().parents[1] / "bilayer" / "examples" / "irrigation_timer_chip_carrier.toml")
 
 
 def _example_path():

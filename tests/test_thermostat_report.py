@@ -16,7 +16,7 @@ from bilayer.errors import DesignFileError
 from bilayer.thermostat import closing_temperature
 from bilayer.thermostat_report import analyse, element_from_design
 
-EXAMPLE = Path(__file__).resolve().parents[1] / "examples" / "propagator_heat_mat_cutout.toml"
+EXAMPLE = Path(__file__).resolve().parents[1] / "bilayer" / "examples" / "propagator_heat_mat_cutout.toml"
 
 BASE = """
 format_version = 1
