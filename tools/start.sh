@@ -3,7 +3,7 @@
 #   tools/start.sh              JupyterLab on http://127.0.0.1:8888 with notebooks/start_here.ipynb
 #   tools/start.sh --headless   no browser: run the start notebook top to bottom in a kernel and write
 #                               the executed copy and its figures to build/start_here/
-# Needs only Python 3.10+. Environment: PYTHON (interpreter for the venv), VENV (default .venv), PORT.
+# Needs only Python 3.11+. Environment: PYTHON (interpreter for the venv), VENV (default .venv), PORT.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 PYTHON=${PYTHON:-python3}

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# Run every check of bilayer on a machine that has only Python 3.10+:
+# Run every check of bilayer on a machine that has only Python 3.11+:
 #   unit and reference tests (tests/), the notebooks under nbval (notebooks/), and the real-browser
 #   test (JupyterLab on 127.0.0.1 + Debian's headless Chromium driven by Playwright).
 # Creates .venv if missing and installs ".[test]" into it. As root on Debian/Ubuntu it installs the
