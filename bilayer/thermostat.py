@@ -284,19 +284,31 @@ def closing_temperature(element: ThermalElement, gap: float, side: str = "auto",
     """
     gap = _check_gap(element, gap)
     sign = element.side_sign(side)
+    T, T_small, direction, rate = _closure(
+        lambda T, exact: sign * element.travel(T, exact), gap, element.reference_temperature, search,
+        InputError("thermostat.gap", gap, "a gap the element reaches within the search range",
+                   f"the element travels toward side {'+' if sign > 0 else '-'}z; check the contact side"))
+    span = np.array([element.reference_temperature, T])
+    return SetPoint(T, T_small, direction, gap, sign, element.reference_temperature, sign * rate,
+                    element.strip.source, element.strip.data_warnings(span))
+
+
+def _closure(approach, gap: float, reference: float, search, not_reached: InputError):
+    """Where ``approach(T, exact)`` first reaches ``gap`` from the reference temperature.
+
+    Returns (T exact, T small-deflection, direction, d approach/dT at T exact); raises
+    ``not_reached`` when either kinematics misses the gap within ``search``.
+    """
     found = {}
     for exact in (True, False):
-        hit = _first_crossing(lambda T: sign * element.travel(T, exact) - gap, element.reference_temperature, search)
+        hit = _first_crossing(lambda T, exact=exact: approach(T, exact) - gap, reference, search)
         if hit is None:
-            raise InputError("thermostat.gap", gap, "a gap the element reaches within the search range",
-                             f"the element travels toward side {'+' if sign > 0 else '-'}z; check the contact side")
+            raise not_reached
         found[exact] = hit
     T, direction = found[True]
     h = 1e-3
-    rate = float(np.diff(element.travel(np.array([T - h, T + h])))[0] / (2 * h))
-    span = np.array([element.reference_temperature, T])
-    return SetPoint(T, found[False][0], direction, gap, sign, element.reference_temperature, rate,
-                    element.strip.source, element.strip.data_warnings(span))
+    rate = float(np.diff(approach(np.array([T - h, T + h]), True))[0] / (2 * h))
+    return T, found[False][0], direction, rate
 
 
 def meeting_temperature(
@@ -318,21 +330,13 @@ def meeting_temperature(
         if faces not in ("top", "bottom"):
             raise InputError(f"thermostat.{field_name}", faces, "'top' or 'bottom'")
         signs.append(1 if faces == "top" else -1)
-    found = {}
-    for exact in (True, False):
-        def closing(T, exact=exact):
-            return signs[0] * first.travel(T, exact) + signs[1] * second.travel(T, exact) - gap
-        hit = _first_crossing(closing, first.reference_temperature, search)
-        if hit is None:
-            raise InputError("thermostat.gap", gap, "a gap the two elements close within the search range")
-        found[exact] = hit
-    T, direction = found[True]
-    h = 1e-3
-    both = np.array([T - h, T + h])
-    rate = float(np.diff(signs[0] * first.travel(both) + signs[1] * second.travel(both))[0] / (2 * h))
+    T, T_small, direction, rate = _closure(
+        lambda T, exact: signs[0] * first.travel(T, exact) + signs[1] * second.travel(T, exact), gap,
+        first.reference_temperature, search,
+        InputError("thermostat.gap", gap, "a gap the two elements close within the search range"))
     span = np.array([first.reference_temperature, T])
     source = first.strip.source if first.strip.source == second.strip.source else f"{first.strip.source} / {second.strip.source}"
-    return SetPoint(T, found[False][0], direction, gap, 0, first.reference_temperature, rate, source,
+    return SetPoint(T, T_small, direction, gap, 0, first.reference_temperature, rate, source,
                     first.strip.data_warnings(span) + second.strip.data_warnings(span))
 
 
