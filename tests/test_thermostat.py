@@ -1,7 +1,7 @@
 """Thermostat elements: flexivity, element forms, set points, contact force, work and stress.
 
 Every check names its source. "applications.md" / "layers.md" are the project's reference sheets
-(/work/shared/reference); their [D]/[DER] check values are used only where the test re-derives them by a
+(shared/reference beside the checkout); their [D]/[DER] check values are used only where the test re-derives them by a
 second, independent method (a hand formula or a numerical integration written here).
 """
 from __future__ import annotations
