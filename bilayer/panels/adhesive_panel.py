@@ -61,10 +61,7 @@ class AdhesivePanel(JobPanel):
         return ADHESIVE_CAUTIONS
 
     def controls(self) -> widgets.Widget:
-        groups = [widgets.VBox([self.form.entries[name].widget for name in names]) for _, names in GROUPS]
-        accordion = widgets.Accordion(groups, titles=tuple(title for title, _ in GROUPS))
-        accordion.selected_index = 0
-        return accordion
+        return self.grouped_controls(GROUPS)
 
     def compute(self, design):
         from ..adhesive import assess_adhesive_design
@@ -73,13 +70,9 @@ class AdhesivePanel(JobPanel):
 
     def report_text(self, assessment) -> str:
         from ..adhesive import ADHESIVE_CAUTIONS
-        from ..cautions import cautions_text
         from ..commands.bond import report
 
-        text = report(self.current_design(), assessment, self.model.system)
-        for cautions in (cautions_text(ADHESIVE_CAUTIONS), cautions_text()):
-            text = text.split("\n\n" + cautions)[0]
-        return text
+        return self.report_without_cautions(report, assessment, ADHESIVE_CAUTIONS)
 
     def worst_case(self, assessment) -> int:
         """Index of the operating temperature with the largest |end shear|."""

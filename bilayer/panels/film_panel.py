@@ -54,10 +54,7 @@ class FilmPanel(JobPanel):
         return tuple(CAUTIONS)
 
     def controls(self) -> widgets.Widget:
-        groups = [widgets.VBox([self.form.entries[name].widget for name in names]) for _, names in GROUPS]
-        accordion = widgets.Accordion(groups, titles=tuple(title for title, _ in GROUPS))
-        accordion.selected_index = 0
-        return accordion
+        return self.grouped_controls(GROUPS)
 
     def compute(self, design):
         from ..films import assess_film_design
@@ -65,11 +62,9 @@ class FilmPanel(JobPanel):
         return assess_film_design(design)
 
     def report_text(self, assessment) -> str:
-        from ..cautions import cautions_text
         from ..commands.film import report
 
-        text = report(self.current_design(), assessment, self.model.system)
-        return text.split("\n\n" + cautions_text())[0]
+        return self.report_without_cautions(report, assessment)
 
     def render(self, assessment) -> None:
         from ..films import stoney_curvature_ratio, stoney_stress_ratio

@@ -66,6 +66,23 @@ class JobPanel(View):
         """The entry widgets, arranged (default: one column in field order)."""
         return widgets.VBox([entry.widget for entry in self.form.entries.values()])
 
+    def grouped_controls(self, groups) -> widgets.Widget:
+        """Entry widgets in an accordion of ``(title, field names)`` groups, the first one open."""
+        boxes = [widgets.VBox([self.form.entries[name].widget for name in names]) for _, names in groups]
+        accordion = widgets.Accordion(boxes, titles=tuple(title for title, _ in groups))
+        accordion.selected_index = 0
+        return accordion
+
+    def report_without_cautions(self, report, assessment, extra_cautions=()) -> str:
+        """The command line's ``report`` of this assessment, less its closing cautions (shown in the box
+        above the entries)."""
+        from ..cautions import cautions_text
+
+        text = report(self.current_design(), assessment, self.model.system)
+        for cautions in (cautions_text(extra_cautions), cautions_text()):
+            text = text.split("\n\n" + cautions)[0]
+        return text
+
     def shown_fields(self) -> tuple[str, ...]:
         """Fields that apply to the current choices (the others are hidden and not written)."""
         return self.fields

@@ -71,12 +71,8 @@ class SolderPanel(JobPanel):
     def controls(self) -> widgets.Widget:
         from ..solder import CYCLING_PRESETS
 
-        entries = self.form.entries
-        entries["test_cycle"].widget.placeholder = "one of " + ", ".join(CYCLING_PRESETS)
-        groups = [widgets.VBox([entries[name].widget for name in names]) for _, names in GROUPS]
-        accordion = widgets.Accordion(groups, titles=tuple(title for title, _ in GROUPS))
-        accordion.selected_index = 0
-        return accordion
+        self.form.entries["test_cycle"].widget.placeholder = "one of " + ", ".join(CYCLING_PRESETS)
+        return self.grouped_controls(GROUPS)
 
     def compute(self, design):
         from ..solder import assess_solder_design
@@ -84,13 +80,10 @@ class SolderPanel(JobPanel):
         return assess_solder_design(design)
 
     def report_text(self, assessment) -> str:
-        """The command line's report of this assessment (its closing cautions are in the box above)."""
-        from ..cautions import cautions_text
         from ..commands.solder import report
         from ..solder import SOLDER_CAUTIONS
 
-        text = report(self.current_design(), assessment, self.model.system)
-        return text.split("\n\n" + cautions_text(SOLDER_CAUTIONS))[0]
+        return self.report_without_cautions(report, assessment, SOLDER_CAUTIONS)
 
     def render(self, assessment) -> None:
         joint = assessment.joint
