@@ -355,6 +355,8 @@ class MaterialLibrary(Mapping[str, Material]):
                        citations: Mapping[str, str] | None = None) -> "MaterialLibrary":
         """A new library with ``materials`` added (``replace=True`` lets them override same keys)."""
         incoming = [m if m.key else m.with_changes(key=_key_from_name(m.name)) for m in materials]
+        for material in incoming:
+            warn_if_unit_slip(material, self)
         new_keys = {m.key for m in incoming}
         clashes = [k for k in new_keys if k in self._materials]
         if clashes and not replace:
@@ -473,6 +475,39 @@ def default_library() -> MaterialLibrary:
 def load_material_file(path: str | os.PathLike) -> MaterialLibrary:
     """The materials of a user file, as a library of their own (merge with ``default_library().with_file``)."""
     return MaterialLibrary.from_toml(path)
+
+
+DEGF_PER_K = 1.8  # a CTE per degF is 1/1.8 of the same CTE per K
+
+
+def warn_if_unit_slip(material: Material, library: "MaterialLibrary | None" = None) -> None:
+    """Warn when a user material's CTE looks like a per-degF number typed as per-K (or the reverse).
+
+    Judged against the library entry with the same key or name: the slip is likely when the value
+    differs from that entry by more than 5 % but equals it divided (or multiplied) by 1.8 within 3 %.
+    (materials.md sec. 9 lists this slip among the common ones.)
+    """
+    from ..errors import warn_suspicious
+
+    library = library if library is not None else default_library()
+    known = None
+    for name in (material.key, material.name):
+        key = library._index.get(normalize_name(name)) if name else None
+        if key is not None:
+            known = library._materials[key]
+            break
+    if known is None or known.alpha == 0 or material.alpha == 0:
+        return
+    ratio = material.alpha / known.alpha
+    if abs(ratio - 1) <= 0.05:
+        return
+    for factor, slip in ((1 / DEGF_PER_K, "a per-degF value typed as per-K"),
+                         (DEGF_PER_K, "a per-K value typed as per-degF")):
+        if abs(ratio / factor - 1) <= 0.03:
+            warn_suspicious("cte", material.alpha,
+                            f"material {material.name!r}: {ratio:.3f} x the library's {known.name} "
+                            f"({known.alpha:.3g} /K); {slip}?", stacklevel=4)
+            return
 
 
 def get_material(name_or_key: "str | Material", library: MaterialLibrary | None = None) -> Material:

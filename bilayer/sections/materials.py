@@ -64,6 +64,7 @@ def read_materials(table: object, source: str, line_of: Callable[[str, str], int
     import tomli_w
 
     from ..materials import MaterialLibrary
+    from ..materials.library import warn_if_unit_slip
 
     top = Location(source, "[materials]", lambda key: line_of("materials", key))
     if not isinstance(table, Mapping):
@@ -96,6 +97,7 @@ def read_materials(table: object, source: str, line_of: Callable[[str, str], int
             with warnings.catch_warnings():  # the checks already warned once for this material
                 warnings.simplefilter("ignore")
                 material = replace(material, key=key)
+        warn_if_unit_slip(material)
         found[material_id] = material
     return found
 
