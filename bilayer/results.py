@@ -255,8 +255,7 @@ def build_result(stack, temperatures, state, axial_force, bending_moment, restra
     thermal_strain = np.stack([np.asarray(m.cte.thermal_strain(T0, T), float) for m in materials], axis=-1)
     E = np.array([m.youngs_modulus for m in materials])
     nu = np.array([m.poisson_ratio for m in materials])
-    Y, f = laminate.effective_properties(E, nu, thermal_strain, state.value)
-    Y = np.broadcast_to(Y, f.shape)
+    Y, f = laminate.effective_properties(E, nu, thermal_strain, state.value)  # Y per layer, f (..., n)
     t = stack.thicknesses
     sol = laminate.solve(Y, t, f, axial_force, bending_moment, restraint)
     sb, st = sol.stress_bottom, sol.stress_top
@@ -292,7 +291,7 @@ def build_result(stack, temperatures, state, axial_force, bending_moment, restra
         stress_top=st,
         transverse_stress_bottom=tb,
         transverse_stress_top=tt,
-        effective_modulus=np.asarray(Y)[(0,) * (np.ndim(Y) - 1)] if np.ndim(Y) > 1 else np.asarray(Y),
+        effective_modulus=Y,
         free_strain=f,
         strain_energy=_scalar(energy),
         warnings=warnings,

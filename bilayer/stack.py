@@ -200,9 +200,9 @@ class Temperatures:
     @property
     def change(self) -> "float | np.ndarray":
         """Delta T = T_operating - T_stress_free [K]."""
-        return np.asarray(self.operating) - self.stress_free if np.ndim(self.operating) else (
-            self.operating - self.stress_free
-        )
+        if np.ndim(self.operating):
+            return np.asarray(self.operating) - self.stress_free
+        return self.operating - self.stress_free
 
     def __eq__(self, other):
         if not isinstance(other, Temperatures):
