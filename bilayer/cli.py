@@ -2,7 +2,7 @@
 
 Exit codes (docs/cli.md):
     0  success
-    1  a check ran and failed (reserved for checks such as a results snapshot that drifted)
+    1  a check ran and failed (bilayer check: drift, edited inputs, broken review log)
     2  invalid input: a bad design file, an unknown material, a wrong unit, a usage error
     3  unexpected internal error (a bug: please report it with the input that caused it)
 
@@ -30,7 +30,7 @@ EXIT_INTERNAL_ERROR = 3
 
 _EPILOG = """exit codes:
   0  success
-  1  a check ran and failed (reserved: e.g. a stored results snapshot that no longer matches)
+  1  a check ran and failed (bilayer check: drift, edited inputs, broken review log)
   2  invalid input: bad design file, unknown material, wrong unit, usage error
   3  unexpected internal error (please report it with the input that caused it)"""
 
