@@ -11,7 +11,7 @@ this package.
                                                   # section the design already holds)
 
 Job panels: :class:`ThermostatPanel`, :class:`SolderPanel`, :class:`AdhesivePanel`,
-:class:`FilmPanel`; slow work behind a button: :class:`FECheckPanel` and the thermostat's Monte Carlo.
+:class:`FilmPanel`; the record's review state: :class:`ReviewPanel`; slow work behind a button: :class:`FECheckPanel` and the thermostat's Monte Carlo.
 """
 from __future__ import annotations
 
@@ -22,6 +22,7 @@ from .explorer import JOB_PANELS, StackExplorer, example_design
 from .fe_check_panel import FECheckPanel
 from .film_panel import FilmPanel
 from .interface_views import InterfaceView, RatioTradeoffView, thickness_ratio_sweep
+from .review import ReviewPanel
 from .job_panel import JobPanel
 from .section_form import SectionForm
 from .solder_panel import SolderPanel
@@ -42,6 +43,7 @@ __all__ = [
     "RatioTradeoffView",
     "QuantityField",
     "ResultTable",
+    "ReviewPanel",
     "SectionForm",
     "ShapeView",
     "SignConventionSketch",
