@@ -609,33 +609,55 @@ def thickness_ratio_tradeoff(
     The ratio axis is logarithmic; the current design is marked on both curves and, if given, the
     ratio of largest curvature is drawn as a dotted line.
     """
-    figure, ax = _target(ax, 3.4)
-    for other in list(figure.axes):
-        if other is not ax and getattr(other, "_bilayer_twin_of", None) is ax:
-            other.remove()
     k_unit = axis_unit("curvature", system)
     peak = float(np.nanmax(np.abs(peak_stress))) if np.size(peak_stress) else 0.0
     s_unit = axis_unit("stress", system, peak if peak > 0 else None)
-    k_colour, s_colour = "#0072B2", "#D55E00"
-    ax.plot(ratio, k_unit(curvature), color=k_colour, lw=1.8)
-    ax.plot([current_ratio], [k_unit(current_curvature)], "o", color=k_colour, ms=7, mec="black", label="current design")
-    ax.set_xscale("log")
-    ax.set_xlabel(ratio_label)
-    ax.set_ylabel(_axis_label("curvature κ", k_unit), color=k_colour)
-    ax.tick_params(axis="y", colors=k_colour)
-    twin = ax.twinx()
-    twin._bilayer_twin_of = ax  # so a redraw into the same axes removes the old twin
-    twin.plot(ratio, s_unit(peak_stress), color=s_colour, lw=1.8, ls="-.")
-    twin.plot([current_ratio], [s_unit(current_peak_stress)], "s", color=s_colour, ms=7, mec="black")
-    twin.set_ylabel(_axis_label(stress_label, s_unit), color=s_colour)
-    twin.tick_params(axis="y", colors=s_colour)
-    if best_ratio is not None and np.isfinite(best_ratio):
-        ax.axvline(best_ratio, color="0.4", ls=":", lw=1.0)
-        ax.text(best_ratio, 0.02, f" largest κ at {best_ratio:.3g}", transform=ax.get_xaxis_transform(), fontsize=7, color="0.3")
-    ax.axvline(current_ratio, color="0.6", lw=0.6)
-    ax.set_title("Curvature and peak interface stress against thickness ratio (total thickness fixed)", fontsize=9)
-    ax.legend(fontsize=7, loc="upper right", frameon=False)
-    ax.grid(True, which="major", lw=0.3, alpha=0.6)
+    key = ("tradeoff", k_unit.label, s_unit.label, ratio_label, stress_label, np.size(ratio))
+    art = _reusable(ax, key)
+    if art is None:
+        figure, ax = _target(ax, 3.4)
+        for other in list(figure.axes):
+            if other is not ax and getattr(other, "_bilayer_twin_of", None) is ax:
+                other.remove()
+        k_colour, s_colour = "#0072B2", "#D55E00"
+        (k_line,) = ax.plot(ratio, k_unit(curvature), color=k_colour, lw=1.8)
+        (k_mark,) = ax.plot([current_ratio], [k_unit(current_curvature)], "o", color=k_colour, ms=7, mec="black",
+                            label="current design")
+        ax.set_xscale("log")
+        ax.set_xlabel(ratio_label)
+        ax.set_ylabel(_axis_label("curvature κ", k_unit), color=k_colour)
+        ax.tick_params(axis="y", colors=k_colour)
+        twin = ax.twinx()
+        twin._bilayer_twin_of = ax  # so a fresh drawing into the same axes removes the old twin
+        (s_line,) = twin.plot(ratio, s_unit(peak_stress), color=s_colour, lw=1.8, ls="-.")
+        (s_mark,) = twin.plot([current_ratio], [s_unit(current_peak_stress)], "s", color=s_colour, ms=7, mec="black")
+        twin.set_ylabel(_axis_label(stress_label, s_unit), color=s_colour)
+        twin.tick_params(axis="y", colors=s_colour)
+        best_line = ax.axvline(current_ratio, color="0.4", ls=":", lw=1.0)
+        best_text = ax.text(current_ratio, 0.02, "", transform=ax.get_xaxis_transform(), fontsize=7, color="0.3")
+        current_line = ax.axvline(current_ratio, color="0.6", lw=0.6)
+        ax.set_title("Curvature and peak interface stress against thickness ratio (total thickness fixed)", fontsize=9)
+        ax.legend(fontsize=7, loc="upper right", frameon=False)
+        ax.grid(True, which="major", lw=0.3, alpha=0.6)
+        art = _remember(ax, key, twin=twin, k_line=k_line, k_mark=k_mark, s_line=s_line, s_mark=s_mark,
+                        best_line=best_line, best_text=best_text, current_line=current_line)
+    else:  # same structure: update the artists in place (no new axes, no new ticks)
+        figure = ax.figure
+        art["k_line"].set_data(ratio, k_unit(curvature))
+        art["k_mark"].set_data([current_ratio], [k_unit(current_curvature)])
+        art["s_line"].set_data(ratio, s_unit(peak_stress))
+        art["s_mark"].set_data([current_ratio], [s_unit(current_peak_stress)])
+        art["current_line"].set_xdata([current_ratio] * 2)
+    show_best = best_ratio is not None and bool(np.isfinite(best_ratio))
+    art["best_line"].set_visible(show_best)
+    art["best_text"].set_visible(show_best)
+    art["best_line"].set_xdata([best_ratio if show_best else current_ratio] * 2)
+    if show_best:
+        art["best_text"].set_x(best_ratio)
+        art["best_text"].set_text(f" largest κ at {best_ratio:.3g}")
+    for axes in (ax, art["twin"]):
+        axes.relim()
+        axes.autoscale_view()
     return figure
 
 

@@ -17,7 +17,7 @@ from . import laminate
 if TYPE_CHECKING:  # pragma: no cover
     from .stack import BendingState, Stack, Temperatures
 
-__all__ = ["StackResult", "build_result", "RESULT_UNITS", "ASSUMPTIONS"]
+__all__ = ["StackResult", "build_result", "layer_inputs", "RESULT_UNITS", "ASSUMPTIONS"]
 
 MISMATCH_STRAIN_WARNING = 2.0e-3  # above this metals yield (250 MPa / 200 GPa = 1.25e-3); materials.md sec. 9
 SMALL_DEFLECTION_LIMIT = 0.05  # kappa * total thickness; beyond it strains are no longer small
@@ -247,14 +247,26 @@ def _plain(value):
     return [_plain(v) for v in array]
 
 
-def build_result(stack, temperatures, state, axial_force, bending_moment, restraint) -> StackResult:
-    """Evaluate the engine for a validated stack and load case (called by :func:`bilayer.stack.evaluate`)."""
+def layer_inputs(stack, temperatures):
+    """(E, nu, eps_th) of each layer: moduli, Poisson's ratios and the free thermal strain, the integral
+    of alpha dT from the stress-free to each operating temperature (shape (..., n)). With
+    :func:`bilayer.laminate.effective_properties` and :func:`bilayer.laminate.solve` these are the
+    engine's inputs, e.g. for sweeping thicknesses of many variants in one call."""
     T0 = temperatures.stress_free
     T = np.asarray(temperatures.operating, float)
     materials = [layer.material for layer in stack.layers]
     thermal_strain = np.stack([np.asarray(m.cte.thermal_strain(T0, T), float) for m in materials], axis=-1)
     E = np.array([m.youngs_modulus for m in materials])
     nu = np.array([m.poisson_ratio for m in materials])
+    return E, nu, thermal_strain
+
+
+def build_result(stack, temperatures, state, axial_force, bending_moment, restraint) -> StackResult:
+    """Evaluate the engine for a validated stack and load case (called by :func:`bilayer.stack.evaluate`)."""
+    T0 = temperatures.stress_free
+    T = np.asarray(temperatures.operating, float)
+    materials = [layer.material for layer in stack.layers]
+    E, nu, thermal_strain = layer_inputs(stack, temperatures)
     Y, f = laminate.effective_properties(E, nu, thermal_strain, state.value)  # Y per layer, f (..., n)
     t = stack.thicknesses
     sol = laminate.solve(Y, t, f, axial_force, bending_moment, restraint)

@@ -147,10 +147,12 @@ def thickness_ratio_sweep(design, length: float, bonds=(), ratios=None, points: 
 
     The part below is the bottom layer (or the layers under the first bond); every layer of a part
     is scaled by the same factor and a bond keeps its thickness. Returns (ratios, curvature [1/m],
-    peak |shear| over all interfaces [Pa], current ratio). Each point is one engine evaluation and one
-    interface-model evaluation.
+    peak |shear| over all interfaces [Pa], current ratio). The curvatures come from one vectorised
+    engine call over all ratios; each point then needs one interface-model evaluation.
     """
     from ..interface import interface_parameters, resolve_bonds
+    from ..laminate import effective_properties, solve
+    from ..results import layer_inputs
 
     stack = design.stack
     bond_set = resolve_bonds(stack, bonds)
@@ -164,17 +166,17 @@ def thickness_ratio_sweep(design, length: float, bonds=(), ratios=None, points: 
         ratios = current * np.logspace(-1.2, 1.2, points)
     ratios = np.asarray(ratios, float)
     total = t_below + t_above
-    curvature = np.empty(ratios.size)
+    thickness = np.tile(t, (ratios.size, 1))
+    thickness[:, below] *= (total * ratios / (1 + ratios) / t_below)[:, None]
+    thickness[:, above] *= (total / (1 + ratios) / t_above)[:, None]
+    E, nu, thermal_strain = layer_inputs(stack, design.temperatures)
+    Y, f = effective_properties(E, nu, thermal_strain, design.state.value)
+    curvature = solve(Y, thickness, f, design.axial_force, design.bending_moment).curvature  # all at once
     peak = np.empty(ratios.size)
-    for k, r in enumerate(ratios):
-        new_below, new_above = total * r / (1 + r), total / (1 + r)
-        thickness = t.copy()
-        thickness[below] *= new_below / t_below
-        thickness[above] *= new_above / t_above
-        swept = Stack(tuple(replace(layer, thickness=float(h)) for layer, h in zip(stack.layers, thickness)))
-        curvature[k] = float(design.replace(stack=swept).evaluate().curvature)
+    half = 0.5 * length
+    for k, row in enumerate(thickness):
+        swept = Stack(tuple(replace(layer, thickness=float(h)) for layer, h in zip(stack.layers, row)))
         params = interface_parameters(swept, design.temperatures, design.state, bonds=bond_set)
-        half = 0.5 * length
         peak[k] = max(abs(float(p.force_and_shear(np.array([half]), half)[1][0])) for p in params)
     return ratios, curvature, peak, current
 
