@@ -70,7 +70,7 @@ def solve(
         from .errors import InputError
 
         raise InputError("restraint", restraint, "one of " + ", ".join(RESTRAINTS))
-    Y, t, f = (np.moveaxis(np.asarray(a, float), layer_axis, 0) for a in (modulus, thickness, free_strain))
+    Y, t, f = (_layers_first(np.asarray(a, float), layer_axis) for a in (modulus, thickness, free_strain))
     n = max(Y.shape[0], t.shape[0], f.shape[0])
     shape = np.broadcast_shapes(Y.shape[1:], t.shape[1:], f.shape[1:], np.shape(axial_force),
                                 np.shape(bending_moment))
@@ -128,7 +128,7 @@ def solve(
             np.multiply(Yi, s, out=stress[face, i, ...])
 
     def per_layer(values):
-        return np.moveaxis(values, 0, layer_axis)
+        return values if values.ndim == 1 else np.moveaxis(values, 0, layer_axis)
 
     return LaminateSolution(
         axial_strain=c,
@@ -145,6 +145,11 @@ def solve(
         mechanical_strain_bottom=per_layer(strain[0]),
         mechanical_strain_top=per_layer(strain[1]),
     )
+
+
+def _layers_first(array: np.ndarray, layer_axis: int) -> np.ndarray:
+    """The array with its layer axis first (a one-design, 1-D array already has it)."""
+    return array if array.ndim <= 1 else np.moveaxis(array, layer_axis, 0)
 
 
 def effective_properties(youngs_modulus, poisson_ratio, thermal_strain, state: str):

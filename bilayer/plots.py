@@ -655,9 +655,19 @@ def thickness_ratio_tradeoff(
     if show_best:
         art["best_text"].set_x(best_ratio)
         art["best_text"].set_text(f" largest κ at {best_ratio:.3g}")
-    for axes in (ax, art["twin"]):
-        axes.relim()
-        axes.autoscale_view()
+    # fixed ratio range and sticky value ranges: a small change redraws only the curves (blitting)
+    twin = art["twin"]
+    ax.set_xlim(float(np.min(ratio)), float(np.max(ratio)))
+    k_values = np.append(k_unit(curvature), k_unit(current_curvature))
+    s_values = np.append(s_unit(peak_stress), s_unit(current_peak_stress))
+    first_draw = not art.get("drawn", False)
+    for axes, values in ((ax, k_values), (twin, s_values)):
+        current = None if first_draw else axes.get_ylim()
+        axes.set_ylim(*_sticky_limits(current, float(np.nanmin(values)), float(np.nanmax(values)), share=0.5, pad=0.2))
+    art["drawn"] = True
+    _mark_dynamic(ax, [art["k_line"], art["k_mark"], art["s_line"], art["s_mark"], art["current_line"],
+                       art["best_line"], art["best_text"]],
+                  twin.get_ylim(), tuple(twin.get_yticks()), twin.get_ylabel())
     return figure
 
 

@@ -183,7 +183,9 @@ class FigureImage(widgets.Image):
         (blitting); otherwise the whole figure is drawn and its background saved.
         """
         canvas = self.figure.canvas
-        marked = [ax.__dict__.get("_bilayer_artists", {}) for ax in self.figure.axes]
+        # twin axes (see plots.thickness_ratio_tradeoff) are covered by their host's markings
+        marked = [ax.__dict__.get("_bilayer_artists", {}) for ax in self.figure.axes
+                  if getattr(ax, "_bilayer_twin_of", None) is None]
         blit = len(marked) == 1 and "static_key" in marked[0]
         if blit and self._background is not None and marked[0]["static_key"] == self._static_key:
             canvas.restore_region(self._background)
