@@ -31,6 +31,7 @@ import numpy as np
 
 from .cautions import CAUTIONS
 from .errors import InputError, check_range, warn_suspicious
+from .units import from_si
 
 __all__ = [
     "ADHESIVE_CAUTIONS",
@@ -45,7 +46,6 @@ __all__ = [
     "assess_adhesive_design",
 ]
 
-ZERO_CELSIUS = 273.15
 
 ADHESIVE_CAUTIONS = (
     "Screening estimate only: end shear and peel come from a beam-type interface model. Qualification "
@@ -226,10 +226,10 @@ def _glass_transition_warnings(joint: AdhesiveJoint, T: np.ndarray) -> list[str]
         return ["adhesive glass transition not given: cannot check whether the range crosses it"]
     messages = []
     low, high = float(T.min()), float(T.max())
-    tg_c = tg - ZERO_CELSIUS
+    tg_c = from_si(tg, "temperature", "degC")
     if low < tg < high:
         messages.append(
-            f"the operating range {low - ZERO_CELSIUS:.0f} to {high - ZERO_CELSIUS:.0f} degC crosses the "
+            f"the operating range {from_si(low, 'temperature', 'degC'):.0f} to {from_si(high, 'temperature', 'degC'):.0f} degC crosses the "
             f"adhesive glass transition ({tg_c:.0f} degC): modulus and CTE change there; the elastic results "
             "on the hot side are not valid with these constants"
         )
@@ -241,7 +241,7 @@ def _glass_transition_warnings(joint: AdhesiveJoint, T: np.ndarray) -> list[str]
     if tg < joint.stress_free_temperature:
         messages.append(
             f"the adhesive glass transition ({tg_c:.0f} degC) is below the stress-free temperature "
-            f"({joint.stress_free_temperature - ZERO_CELSIUS:.0f} degC): little stress builds while the "
+            f"({from_si(joint.stress_free_temperature, 'temperature', 'degC'):.0f} degC): little stress builds while the "
             "adhesive is rubbery, so Tg is usually the better stress-free temperature"
         )
     return messages

@@ -15,6 +15,7 @@ Display systems: ``"si"`` (mm or um, MPa, degC, 1/m) and ``"us"`` (in or mil, ks
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 import zlib
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Mapping, Sequence
@@ -87,36 +88,51 @@ class AxisUnit:
         return np.asarray(value_si, float) * self.factor + self.offset
 
 
-_INCH = 0.0254
-_PSI = 6894.757293168361
+def _axis(shown_label: str, kind: str, unit: str) -> AxisUnit:
+    """The display unit ``unit`` of bilayer.units as an axis map, labelled ``shown_label``."""
+    from . import units
 
-_UNITS = {
+    if kind == "temperature":  # shown = T * scale + offset; the scale is that of a difference
+        delta = {"degC": "K", "degF": "delta_degF"}[unit]
+        return AxisUnit(shown_label, units.from_si(1.0, "temperature_difference", delta),
+                        units.from_si(0.0, "temperature", unit))
+    return AxisUnit(shown_label, units.from_si(1.0, kind, unit))
+
+
+_AXES = {  # axis kind -> (shown label, bilayer.units kind, unit) per system
     "si": {
-        "length": AxisUnit("mm", 1e3),
-        "small_length": AxisUnit("µm", 1e6),
-        "stress": AxisUnit("MPa", 1e-6),
-        "small_stress": AxisUnit("kPa", 1e-3),
-        "curvature": AxisUnit("1/m", 1.0),
-        "temperature": AxisUnit("°C", 1.0, -273.15),
-        "temperature_difference": AxisUnit("K", 1.0),
-        "ratio": AxisUnit("", 1.0),
+        "length": ("mm", "length", "mm"),
+        "small_length": ("µm", "length", "um"),
+        "stress": ("MPa", "stress", "MPa"),
+        "small_stress": ("kPa", "stress", "kPa"),
+        "modulus": ("GPa", "stress", "GPa"),
+        "curvature": ("1/m", "curvature", "1/m"),
+        "temperature": ("°C", "temperature", "degC"),
+        "temperature_difference": ("K", "temperature_difference", "K"),
     },
     "us": {
-        "length": AxisUnit("in", 1.0 / _INCH),
-        "small_length": AxisUnit("mil", 1.0 / (1e-3 * _INCH)),
-        "stress": AxisUnit("ksi", 1.0 / (1e3 * _PSI)),
-        "small_stress": AxisUnit("psi", 1.0 / _PSI),
-        "curvature": AxisUnit("1/in", _INCH),
-        "temperature": AxisUnit("°F", 1.8, -459.67),
-        "temperature_difference": AxisUnit("°F", 1.8),
-        "ratio": AxisUnit("", 1.0),
+        "length": ("in", "length", "in"),
+        "small_length": ("mil", "length", "mil"),
+        "stress": ("ksi", "stress", "ksi"),
+        "small_stress": ("psi", "stress", "psi"),
+        "modulus": ("Msi", "stress", "Msi"),
+        "curvature": ("1/in", "curvature", "1/in"),
+        "temperature": ("°F", "temperature", "degF"),
+        "temperature_difference": ("°F", "temperature_difference", "delta_degF"),
     },
 }
 
 
+@lru_cache(maxsize=None)
+def _axis_units(system: str) -> dict[str, AxisUnit]:
+    table = {kind: _axis(*spec) for kind, spec in _AXES[system].items()}
+    table["ratio"] = AxisUnit("", 1.0)
+    return table
+
+
 def _check_system(system: str) -> str:
     key = str(system).strip().lower()
-    if key not in _UNITS:
+    if key not in _AXES:
         raise InputError("unit system", system, "'si' or 'us'")
     return key
 
@@ -127,13 +143,13 @@ def axis_unit(kind: str, system: str = "si", magnitude: float | None = None) -> 
     With ``magnitude`` (the largest |value| in SI), lengths under 0.1 mm (0.1 in) switch to um (mil)
     and stresses under 1 MPa (1 ksi) to kPa (psi), so tick labels stay readable.
     """
-    units = _UNITS[_check_system(system)]
-    if kind not in units:
-        raise InputError("axis kind", kind, "one of " + ", ".join(sorted(units)))
-    if magnitude is not None and math.isfinite(magnitude):
-        if kind == "length" and magnitude < (1e-4 if system == "si" else 0.1 * _INCH):
+    units = _axis_units(_check_system(system))
+    if kind not in units or kind.startswith("small_"):
+        raise InputError("axis kind", kind, "one of " + ", ".join(sorted(k for k in units if not k.startswith("small_"))))
+    if magnitude is not None and math.isfinite(magnitude):  # below 0.1 mm (0.1 in) or 1 MPa (1 ksi)
+        if kind == "length" and units["length"](magnitude) < 0.1:
             return units["small_length"]
-        if kind == "stress" and magnitude < (1e6 if system == "si" else 1e3 * _PSI):
+        if kind == "stress" and units["stress"](magnitude) < 1.0:
             return units["small_stress"]
     return units[kind]
 
@@ -878,7 +894,7 @@ def parameter_sweep(
     name, kind = _SWEEP_KINDS[parameter]
     v = np.asarray(values, float)
     if kind == "modulus":
-        unit = AxisUnit("GPa", 1e-9) if system == "si" else AxisUnit("Msi", 1.0 / (1e6 * _PSI))
+        unit = axis_unit("modulus", system)
     else:
         unit = axis_unit("length", system, float(np.max(v)))
     every = np.concatenate([np.abs(end_shear), [] if max_peel is None else np.asarray(max_peel, float)])

@@ -30,6 +30,7 @@ import numpy as np
 
 from .cautions import CAUTIONS
 from .errors import InputError, check_range, warn_suspicious
+from .units import from_si, to_si
 
 if TYPE_CHECKING:  # pragma: no cover
     from .results import StackResult
@@ -59,7 +60,6 @@ __all__ = [
     "assess_solder_design",
 ]
 
-ZERO_CELSIUS = 273.15
 TIN_LEAD_DUCTILITY = 0.325
 """Engelmaier fatigue ductility coefficient eps_f' of eutectic Sn-Pb (2 eps_f' = 0.65)."""
 
@@ -117,7 +117,7 @@ class CycleProfile:
 
     @property
     def label(self) -> str:
-        return self.name or f"{self.low - ZERO_CELSIUS:+.0f}/{self.high - ZERO_CELSIUS:+.0f} degC"
+        return self.name or f"{from_si(self.low, 'temperature', 'degC'):+.0f}/{from_si(self.high, 'temperature', 'degC'):+.0f} degC"
 
     def with_timing(self, dwell: float | None = None, cycles_per_day: float | None = None) -> "CycleProfile":
         """The same range with another dwell [s] or cycling rate [1/day]."""
@@ -148,7 +148,7 @@ _PRESET_TIMING = "dwell 15 min and 24 cycles/day are placeholders (common practi
 
 def _preset(low_c: float, high_c: float, note: str) -> CycleProfile:
     name = f"{low_c:+.0f}/{high_c:+.0f}".replace("+0/", "0/")
-    return CycleProfile(low_c + ZERO_CELSIUS, high_c + ZERO_CELSIUS, 900.0, 24.0, name, note + "; " + _PRESET_TIMING)
+    return CycleProfile(to_si(low_c, "temperature", "degC"), to_si(high_c, "temperature", "degC"), 900.0, 24.0, name, note + "; " + _PRESET_TIMING)
 
 
 CYCLING_PRESETS: Mapping[str, CycleProfile] = MappingProxyType(
@@ -310,7 +310,7 @@ def engelmaier_exponent(mean_temperature, dwell):
         raise InputError("mean_temperature", T.tolist(), "an absolute temperature > 0 K")
     if not np.all(np.isfinite(t)) or np.any(t <= 0):
         raise InputError("dwell", t.tolist(), "a dwell time > 0 s")
-    c = -0.442 - 6e-4 * (T - ZERO_CELSIUS) + 1.74e-2 * np.log1p(360.0 / (t / 60.0))
+    c = -0.442 - 6e-4 * from_si(T, "temperature", "degC") + 1.74e-2 * np.log1p(360.0 / (t / 60.0))
     return float(c) if c.ndim == 0 else c
 
 
@@ -425,7 +425,7 @@ def _material_warnings(label: str, expansion, cycle: CycleProfile) -> list[str]:
     tg = getattr(expansion, "glass_transition", None)
     if tg is not None and cycle.low < tg < cycle.high:
         messages.append(
-            f"{label}: the cycle crosses its glass transition ({tg - ZERO_CELSIUS:.0f} degC); its CTE rises "
+            f"{label}: the cycle crosses its glass transition ({from_si(tg, 'temperature', 'degC'):.0f} degC); its CTE rises "
             "above it, so use a CTE model that covers both sides"
         )
     cte = getattr(expansion, "cte", None)

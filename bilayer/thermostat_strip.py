@@ -25,6 +25,7 @@ import numpy as np
 
 from . import laminate
 from .errors import InputError, ModelLimitWarning, check_finite, check_range
+from .units import from_si
 from .stack import BendingState, Stack, Temperatures, evaluate
 
 __all__ = ["Flexivity", "ThermostatStrip", "DatasheetStrip", "FAHRENHEIT_PER_KELVIN"]
@@ -399,8 +400,8 @@ class DatasheetStrip:
         low, high = self.flexivity.temperature_low, self.flexivity.temperature_high
         if low is not None and (float(np.min(T)) < low - 1e-6 or float(np.max(T)) > high + 1e-6):
             message = (
-                f"the temperatures leave the data sheet's flexivity range ({low - 273.15:g} to "
-                f"{high - 273.15:g} degC); the flexivity is extrapolated"
+                f"the temperatures leave the data sheet's flexivity range ({from_si(low, 'temperature', 'degC'):g} to "
+                f"{from_si(high, 'temperature', 'degC'):g} degC); the flexivity is extrapolated"
             )
             warnings.warn(message, ModelLimitWarning, stacklevel=3)
             return (message,)

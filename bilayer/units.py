@@ -34,6 +34,8 @@ from fractions import Fraction
 from functools import lru_cache
 from typing import Any
 
+import numpy as np
+
 from .errors import InputError, UnitError
 
 __all__ = [
@@ -43,6 +45,7 @@ __all__ = [
     "register_kind",
     "kind_info",
     "parse",
+    "to_si",
     "to_display",
     "display_unit",
     "from_si",
@@ -409,6 +412,23 @@ def from_si(value_si: Any, kind: str, label: str) -> Any:
     if isinstance(value_si, numbers.Real) and math.isfinite(value_si):
         return float(Fraction(value_si) / factor)
     return value_si / float(factor)
+
+
+def to_si(value: Any, kind: str, label: str) -> Any:
+    """Convert a value shown in unit ``label`` back to SI (the inverse of :func:`from_si`; exact
+    rounding for floats, so a decimal typed in degC reads back as that decimal)."""
+    info = kind_info(kind)
+    if info.name == "temperature":
+        scale, zero = _OFFSETS.get(label, (Fraction(1), Fraction(0)))
+        if label not in _OFFSETS and label != "K":
+            raise InputError("unit", label, "K, degC or degF")
+        if isinstance(value, numbers.Real) and math.isfinite(value):
+            return float((Fraction(repr(float(value))) + zero) * scale)
+        return (np.asarray(value, float) + float(zero)) * float(scale)
+    factor = _factor(info.si_unit, label)
+    if isinstance(value, numbers.Real) and math.isfinite(value):
+        return float(Fraction(repr(float(value))) * factor)
+    return np.asarray(value, float) * float(factor)
 
 
 def to_display(value_si: float, kind: str, system: str = "si", unit: str | None = None) -> tuple[float, str]:

@@ -33,7 +33,6 @@ __all__ = [
     "range_warning",
 ]
 
-KELVIN_OFFSET = 273.15
 NOMINAL_RANGE = (293.15, 373.15)
 """Temperatures [K] of the representative mean coefficient of tables and fits: 20 to 100 degC."""
 ALPHA_LIMIT = 1.0e-3
@@ -41,7 +40,15 @@ ALPHA_LIMIT = 1.0e-3
 _RANGE_TOLERANCE = 1e-6  # K; absorbs round-off of degC -> K conversions in ``covers``
 
 def _celsius(kelvin: float) -> str:
-    return f"{kelvin - KELVIN_OFFSET:g} degC"
+    from ..units import format as show
+
+    return show(kelvin, "temperature", "si", digits=6)
+
+
+def _celsius_number(kelvin: float) -> str:
+    from ..units import from_si
+
+    return f"{from_si(kelvin, 'temperature', 'degC'):g}"
 
 
 def _absolute_temperatures(field_name: str, value) -> np.ndarray:
@@ -215,7 +222,7 @@ class ConstantCTE(CTEModel):
         text = f"constant {self.value * 1e6:.4g} ppm/K"
         if self.reference_range is not None:
             low, high = self.reference_range
-            text += f" (mean {low - KELVIN_OFFSET:g} to {_celsius(high)})"
+            text += f" (mean {_celsius_number(low)} to {_celsius(high)})"
         return text
 
 
@@ -277,7 +284,7 @@ class MeanCTETable(CTEModel):
     def describe(self) -> str:
         return (
             f"mean coefficients from {_celsius(self.reference_temperature)}, table "
-            f"{self.temperatures[0] - KELVIN_OFFSET:g} to {_celsius(self.temperatures[-1])}"
+            f"{_celsius_number(self.temperatures[0])} to {_celsius(self.temperatures[-1])}"
         )
 
 
@@ -328,7 +335,7 @@ class InstantaneousCTETable(CTEModel):
 
     def describe(self) -> str:
         return (
-            f"instantaneous coefficients, table {self.temperatures[0] - KELVIN_OFFSET:g} to "
+            f"instantaneous coefficients, table {_celsius_number(self.temperatures[0])} to "
             f"{_celsius(self.temperatures[-1])}"
         )
 
@@ -388,8 +395,8 @@ def range_warning(model: CTEModel, t_from, t_to, field: str) -> str | None:
     high = max(float(np.max(t_from)), float(np.max(t_to)))
     data_low, data_high = model.valid_range
     return (
-        f"{field}: the temperatures {low - KELVIN_OFFSET:g} to {_celsius(high)} leave the CTE data "
-        f"({model.describe()}; valid {data_low - KELVIN_OFFSET:g} to {_celsius(data_high)}); "
+        f"{field}: the temperatures {_celsius_number(low)} to {_celsius(high)} leave the CTE data "
+        f"({model.describe()}; valid {_celsius_number(data_low)} to {_celsius(data_high)}); "
         "the end value is held, so the thermal strain there is extrapolated"
     )
 

@@ -21,7 +21,6 @@ unit strings, or with the ``_C`` suffix in degC.
 """
 from __future__ import annotations
 
-from fractions import Fraction
 
 import math
 import os
@@ -33,8 +32,8 @@ from typing import Iterable, Iterator, Mapping
 
 from ..errors import DesignFileError, InputError, UnknownMaterialError
 from ..files import write_text_atomic
+from ..units import to_si
 from .cte import (
-    KELVIN_OFFSET,
     CTEModel,
     ConstantCTE,
     InstantaneousCTETable,
@@ -138,8 +137,7 @@ class _Reader:
                 name = f"{key}_C" if scalar else f"{key}_C[{i}]"
                 if isinstance(item, bool) or not isinstance(item, (int, float)):
                     raise self.error(name, item, "a plain number in degC")
-                # correctly rounded, so the kelvin value reads back as the decimal degC typed
-                result.append(float(Fraction(repr(item)) + Fraction(repr(KELVIN_OFFSET))))
+                result.append(to_si(item, "temperature", "degC"))  # reads back as the degC typed
             return result
         return [self.quantity(key if scalar else f"{key}[{i}]", item, "temperature") for i, item in enumerate(items)]
 

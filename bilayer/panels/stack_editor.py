@@ -16,6 +16,7 @@ import numpy as np
 
 from ..errors import BilayerError
 from ..stack import BendingState, Layer, Stack, Temperatures
+from ..units import display_unit, from_si, to_si
 from ._base import DesignModel, QuantityField, capture_warnings, message_html
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -338,11 +339,14 @@ class StackEditor(widgets.VBox):
             self._sync_slider()
 
     # -- operating-temperature slider --------------------------------------------------------
+    def _slider_unit(self) -> str:
+        return display_unit("temperature", self.model.system)
+
     def _display_temperature(self, kelvin: float) -> float:
-        return kelvin - 273.15 if self.model.system == "si" else kelvin * 1.8 - 459.67
+        return from_si(kelvin, "temperature", self._slider_unit())
 
     def _kelvin(self, shown: float) -> float:
-        return shown + 273.15 if self.model.system == "si" else (shown + 459.67) / 1.8
+        return to_si(shown, "temperature", self._slider_unit())
 
     def _sync_slider(self) -> None:
         """Put the slider on the operating temperature of the current design (display units); with
