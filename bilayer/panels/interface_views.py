@@ -6,7 +6,6 @@ length and the bond layers chosen here.
 """
 from __future__ import annotations
 
-from dataclasses import replace
 from html import escape
 
 import ipywidgets as widgets
@@ -15,6 +14,7 @@ import numpy as np
 from .. import plots
 from ..errors import BilayerError
 from ..stack import Stack
+from ..sweeps import thickness_ratio_sweep
 from ._base import DesignModel, FigureImage, View, message_html
 from .views import StripLengthField, _fmt
 
@@ -141,46 +141,6 @@ class InterfaceView(View):
         self.message.value = ""
 
 
-def thickness_ratio_sweep(design, length: float, bonds=(), ratios=None, points: int = 41):
-    """Curvature and peak interface shear when the thickness ratio of the parts below and above the
-    first interface changes at fixed total thickness.
-
-    The part below is the bottom layer (or the layers under the first bond); every layer of a part
-    is scaled by the same factor and a bond keeps its thickness. Returns (ratios, curvature [1/m],
-    peak |shear| over all interfaces [Pa], current ratio). The curvatures come from one vectorised
-    engine call over all ratios; each point then needs one interface-model evaluation.
-    """
-    from ..interface import interface_parameters, resolve_bonds
-    from ..laminate import effective_properties, solve
-    from ..results import layer_inputs
-
-    stack = design.stack
-    bond_set = resolve_bonds(stack, bonds)
-    first_bond = 1 if 1 in bond_set else None
-    below = [0]
-    above = [i for i in range(1, stack.n_layers) if i != first_bond]
-    t = stack.thicknesses
-    t_below, t_above = t[below].sum(), t[above].sum()
-    current = t_below / t_above
-    if ratios is None:
-        ratios = current * np.logspace(-1.2, 1.2, points)
-    ratios = np.asarray(ratios, float)
-    total = t_below + t_above
-    thickness = np.tile(t, (ratios.size, 1))
-    thickness[:, below] *= (total * ratios / (1 + ratios) / t_below)[:, None]
-    thickness[:, above] *= (total / (1 + ratios) / t_above)[:, None]
-    E, nu, thermal_strain = layer_inputs(stack, design.temperatures)
-    Y, f = effective_properties(E, nu, thermal_strain, design.state.value)
-    curvature = solve(Y, thickness, f, design.axial_force, design.bending_moment).curvature  # all at once
-    peak = np.empty(ratios.size)
-    half = 0.5 * length
-    for k, row in enumerate(thickness):
-        swept = Stack(tuple(replace(layer, thickness=float(h)) for layer, h in zip(stack.layers, row)))
-        params = interface_parameters(swept, design.temperatures, design.state, bonds=bond_set)
-        peak[k] = max(abs(float(p.force_and_shear(np.array([half]), half)[1][0])) for p in params)
-    return ratios, curvature, peak, current
-
-
 class RatioTradeoffView(View):
     """Curvature and peak interface shear over the thickness ratio, with the current design marked."""
 
@@ -204,33 +164,17 @@ class RatioTradeoffView(View):
             self.message.value = message_html("A single layer has no thickness ratio.", "note")
             return
         try:
-            ratios, curvature, peak, current = thickness_ratio_sweep(design, self.model.strip_length, self.model.bonds)
-            from ..interface import interface_parameters
-
-            half = 0.5 * self.model.strip_length
-            params = interface_parameters(design.stack, design.temperatures, design.state, bonds=self.model.bonds)
-            current_peak = max(abs(float(p.force_and_shear(np.array([half]), half)[1][0])) for p in params)
+            sweep = thickness_ratio_sweep(design, self.model.strip_length, self.model.bonds)
         except BilayerError as error:
             self.message.value = message_html(f"{error}. The figure shows the last valid case.")
             return
-        self.sweep = (ratios, curvature, peak)
-        best = _peak_ratio(ratios, np.abs(curvature))
+        self.sweep = (sweep.ratios, sweep.curvature, sweep.peak_shear)
         plots.thickness_ratio_tradeoff(
-            ratios, curvature, peak, current, float(design.evaluate().curvature), current_peak,
-            self.model.system, ax=self.ax, best_ratio=best,
+            sweep.ratios, sweep.curvature, sweep.peak_shear, sweep.current_ratio, sweep.current_curvature,
+            sweep.current_peak_shear, self.model.system, ax=self.ax, best_ratio=sweep.best_ratio,
             ratio_label="thickness ratio, part below / part above the first interface",
         )
         self.image.refresh()
         self.message.value = ""
 
 
-def _peak_ratio(ratios: np.ndarray, values: np.ndarray) -> float | None:
-    """Ratio of the largest value, refined by a parabola through the best sample and its neighbours
-    (in log ratio); None when the largest value sits at the end of the sweep."""
-    i = int(np.argmax(values))
-    if i == 0 or i == len(values) - 1:
-        return None
-    x = np.log(ratios[i - 1:i + 2])
-    y = values[i - 1:i + 2]
-    a, b, _ = np.polyfit(x, y, 2)
-    return float(np.exp(-b / (2 * a))) if a < 0 else float(ratios[i])
