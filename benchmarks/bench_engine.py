@@ -20,7 +20,7 @@ os.environ.setdefault("OMP_NUM_THREADS", "1")
 
 from timing import best_of  # noqa: E402  (benchmarks/timing.py)
 
-from bilayer import laminate  # noqa: E402
+from bilayer.core import laminate
 
 
 
@@ -38,7 +38,7 @@ def two_layer(n=2_000_000):
           f"({t_kernel * 1e3:.1f} ms for {n:.0e}); target 3e7/s: {'met' if rate >= 3e7 else 'NOT met'}")
     print(f"  ratio to a plain copy of the 6 input arrays: {t_kernel / t_copy:.2f}x the copy time")
 
-    from bilayer.symbolic import curvature_expression
+    from bilayer.core.symbolic import curvature_expression
 
     expr, symbols = curvature_expression(2)  # arguments (Y1, Y2, t1, t2, a1, a2, dT, N, M)
     sample = 200

@@ -16,8 +16,8 @@ os.environ.setdefault("OMP_NUM_THREADS", "1")
 os.environ.setdefault("OPENBLAS_NUM_THREADS", "1")
 
 import bilayer as bl  # noqa: E402
-from bilayer.fe import MeshOptions, fe_check, refinement_study  # noqa: E402
-from bilayer.materials import Material  # noqa: E402
+from bilayer.strip.fe import MeshOptions, fe_check, refinement_study
+from bilayer.core.materials import Material
 
 
 def best_of(fn, repeat=3):

@@ -19,8 +19,8 @@ os.environ.setdefault("OMP_NUM_THREADS", "1")
 from timing import best_of  # noqa: E402  (benchmarks/timing.py)
 
 import bilayer as bl  # noqa: E402
-from bilayer.interface import interface_parameters, interface_stresses  # noqa: E402
-from bilayer.materials import Material  # noqa: E402
+from bilayer.strip.interface import interface_parameters, interface_stresses
+from bilayer.core.materials import Material
 
 
 
@@ -53,7 +53,7 @@ def main(points=1000):
     t_full = best_of(lambda: interface_stresses(stack, temps, length, "narrow", bonds=[1], points=points), repeat=50)
     print(f"  full call (constants from the stack, profiles, layer forces, peel extremes): {t_full * 1e3:.3f} ms")
 
-    from bilayer.symbolic_interface import numeric_peel, numeric_shear_lag
+    from bilayer.strip.derivation import numeric_peel, numeric_shear_lag
 
     shear_sym, peel_sym = numeric_shear_lag(), numeric_peel()
     k, K = params.decay_rate, params.peel_compliance

@@ -25,8 +25,8 @@ sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 
 import numpy as np  # noqa: E402
 
-from bilayer import plots  # noqa: E402
-from bilayer.panels import JOB_PANELS, FigureImage, StackExplorer  # noqa: E402
+from bilayer import plots
+from bilayer.panels import JOB_PANELS, FigureImage, StackExplorer
 
 TARGET_MS = 30.0
 
@@ -108,7 +108,7 @@ JOBS = (
 
 def job_panels(repeats: int):
     """Median and p90 [ms] of one typed entry per job panel, on the shipped invented examples."""
-    from bilayer.design_file import load_design
+    from bilayer.designs.design_file import load_design
 
     rows = []
     for section, example, field, pattern, start in JOBS:

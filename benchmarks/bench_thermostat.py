@@ -20,10 +20,10 @@ os.environ.setdefault("OMP_NUM_THREADS", "1")
 from timing import best_of  # noqa: E402  (benchmarks/timing.py)
 
 import bilayer as bl  # noqa: E402
-from bilayer.thermostat import ThermalElement, closing_temperature, gap_for_set_point, response  # noqa: E402
-from bilayer.thermostat_elements import Cantilever  # noqa: E402
-from bilayer.thermostat_strip import ThermostatStrip  # noqa: E402
-from bilayer.tolerance import Tolerance, first_order_set_point, monte_carlo_set_point  # noqa: E402
+from bilayer.thermostat.element import ThermalElement, closing_temperature, gap_for_set_point, response
+from bilayer.thermostat.forms import Cantilever
+from bilayer.thermostat.strip import ThermostatStrip
+from bilayer.thermostat.tolerances import Tolerance, first_order_set_point, monte_carlo_set_point
 
 T0 = 293.15
 

@@ -13,7 +13,7 @@ from __future__ import annotations
 
 from importlib import import_module
 
-from .errors import (
+from .core.errors import (
     BilayerError,
     DesignFileError,
     InputError,
@@ -22,21 +22,20 @@ from .errors import (
     UnitError,
     UnknownMaterialError,
 )
-from .stack import BendingState, Design, Layer, Stack, Temperatures, evaluate
-
-__version__ = "0.1.0"
+from .core.stack import BendingState, Design, Layer, Stack, Temperatures, evaluate
+from .core.version import VERSION as __version__
 
 _LAZY = {
-    "Material": "bilayer.materials",
-    "MaterialLibrary": "bilayer.materials",
-    "get_material": "bilayer.materials",
-    "default_library": "bilayer.materials",
-    "load_material_file": "bilayer.materials",
-    "StackResult": "bilayer.results",
-    "load_design": "bilayer.design_file",
-    "save_design": "bilayer.design_file",
-    "parse": "bilayer.units",
-    "CAUTIONS": "bilayer.cautions",
+    "Material": "bilayer.core.materials",
+    "MaterialLibrary": "bilayer.core.materials",
+    "get_material": "bilayer.core.materials",
+    "default_library": "bilayer.core.materials",
+    "load_material_file": "bilayer.core.materials",
+    "StackResult": "bilayer.core.results",
+    "load_design": "bilayer.designs.design_file",
+    "save_design": "bilayer.designs.design_file",
+    "parse": "bilayer.core.units",
+    "CAUTIONS": "bilayer.core.cautions",
 }
 
 __all__ = [

@@ -7,9 +7,9 @@ import numpy as np
 import pytest
 from scipy.integrate import quad
 
-from bilayer import adhesive as ad
-from bilayer.errors import InputError, SuspiciousInputWarning
-from bilayer.materials import Material
+from bilayer.adhesive import bond as ad
+from bilayer.core.errors import InputError, SuspiciousInputWarning
+from bilayer.core.materials import Material
 
 C0 = 273.15
 ALUMINIUM = Material("aluminium alloy", 70e9, 0.33, 23e-6)
@@ -156,8 +156,8 @@ def _example_path():
 
 def test_example_design_runs_and_matches_direct_calls():
     """The shipped example (invented) through the design file equals the direct API call."""
-    from bilayer.design_file import load_design
-    from bilayer.materials import get_material
+    from bilayer.designs.design_file import load_design
+    from bilayer.core.materials import get_material
 
     design = load_design(_example_path())
     assessment = ad.assess_adhesive_design(design)
@@ -174,7 +174,7 @@ def test_example_design_runs_and_matches_direct_calls():
 def test_command_line_prints_shear_peel_and_cautions(capsys):
     import json
 
-    from bilayer.cli import main
+    from bilayer.cli.main import main
 
     assert main(["bond", str(_example_path())]) == 0
     text = capsys.readouterr().out

@@ -1,8 +1,8 @@
 """Bad input, generated: malformed or out-of-range design files and API calls.
 
-Every case must end in a project error (bilayer.errors.BilayerError) or a SuspiciousInputWarning,
+Every case must end in a project error (bilayer.core.errors.BilayerError) or a SuspiciousInputWarning,
 never in another exception; and when a changed file is accepted, the value that was read must be
-the value the text means (checked against bilayer.units.parse on its own), so a slip cannot turn
+the value the text means (checked against bilayer.core.units.parse on its own), so a slip cannot turn
 into a silently different design. About 1600 generated cases in all (see max_examples).
 """
 from __future__ import annotations
@@ -15,10 +15,10 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from bilayer import Design, Layer, Stack, Temperatures
-from bilayer.design_file import read_design_text
-from bilayer.errors import BilayerError, SuspiciousInputWarning
-from bilayer.materials import Material
-from bilayer.units import KINDS, parse
+from bilayer.designs.design_file import read_design_text
+from bilayer.core.errors import BilayerError, SuspiciousInputWarning
+from bilayer.core.materials import Material
+from bilayer.core.units import KINDS, parse
 
 BASE = """\
 format_version = 1
@@ -159,8 +159,8 @@ OPTIONAL = {("name",), ("format_version",), ("layer", 0, "label"), ("conditions"
 
 
 def _known_keys(table_path) -> set[str]:
-    from bilayer.design_file import _TOP_KEYS
-    from bilayer.sections import sections
+    from bilayer.designs.design_file import _TOP_KEYS
+    from bilayer.designs.sections import sections
 
     if not table_path:
         return {*_TOP_KEYS, *sections()}

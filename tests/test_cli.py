@@ -9,10 +9,10 @@ from pathlib import Path
 
 import pytest
 
-from bilayer.cautions import CAUTIONS
-from bilayer.cli import EXIT_CHECK_FAILED, EXIT_INTERNAL_ERROR, EXIT_INVALID_INPUT, EXIT_OK, commands, main
-from bilayer.design_file import load_design
-from bilayer.units import format as show
+from bilayer.core.cautions import CAUTIONS
+from bilayer.cli.main import EXIT_CHECK_FAILED, EXIT_INTERNAL_ERROR, EXIT_INVALID_INPUT, EXIT_OK, commands, main
+from bilayer.designs.design_file import load_design
+from bilayer.core.units import format as show
 
 EXAMPLES = {p.name[:-5]: Path(str(p)) for p in (resources.files("bilayer") / "examples").iterdir()
             if p.name.endswith(".toml")}
@@ -121,7 +121,7 @@ def test_materials_lists_values_and_sources(capsys):
     code, out, _ = run(capsys, "materials", "solder", "--json")
     rows = json.loads(out)
     assert rows and all("solder" in (r["key"] + r["name"] + r["category"]).lower() for r in rows)
-    from bilayer.materials import default_library
+    from bilayer.core.materials import default_library
 
     for row in rows:
         material = default_library()[row["key"]]
@@ -144,10 +144,10 @@ def test_example_list_print_and_write(capsys, tmp_path):
 
 def test_help_lists_exit_codes_in_a_subprocess():
     """The installed entry point runs as a module in a fresh interpreter; --help exits 0."""
-    done = subprocess.run([sys.executable, "-m", "bilayer.cli", "--help"], capture_output=True, text=True)
+    done = subprocess.run([sys.executable, "-m", "bilayer", "--help"], capture_output=True, text=True)
     assert done.returncode == 0
     assert "exit codes" in done.stdout and "evaluate" in done.stdout
-    done = subprocess.run([sys.executable, "-m", "bilayer.cli", "evaluate", str(EXAMPLES["oxide_on_wafer"]), "--json"],
+    done = subprocess.run([sys.executable, "-m", "bilayer", "evaluate", str(EXAMPLES["oxide_on_wafer"]), "--json"],
                           capture_output=True, text=True)
     assert done.returncode == 0 and json.loads(done.stdout)["bending_state"] == "plate"
 

@@ -9,14 +9,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 from scipy.integrate import quad
 
-from bilayer.errors import InputError
-from bilayer.materials import (
-    ConstantCTE,
-    InstantaneousCTETable,
-    MeanCTETable,
-    SiliconCTE,
-    range_warning,
-)
+from bilayer.core.errors import InputError
+from bilayer.core.materials import ConstantCTE, InstantaneousCTETable, MeanCTETable, SiliconCTE, range_warning
 
 C = 273.15  # degC -> K
 

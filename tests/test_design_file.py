@@ -1,4 +1,4 @@
-"""Design files (bilayer.design_file): exact round trips, atomic saves, located errors.
+"""Design files (bilayer.designs.design_file): exact round trips, atomic saves, located errors.
 
 These are format and robustness tests; the physics behind the numbers is tested elsewhere. The
 results-snapshot test compares the stored values with a fresh engine call (a regression snapshot,
@@ -18,17 +18,11 @@ from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
 from bilayer import Design, Stack, Temperatures
-from bilayer.design_file import (
-    FORMAT_VERSION,
-    design_to_text,
-    load_design,
-    read_design,
-    read_design_text,
-    save_design,
-)
-from bilayer.errors import DesignFileError, InputError, SuspiciousInputWarning
-from bilayer.materials import ConstantCTE, InstantaneousCTETable, Material, MeanCTETable, default_library
-from bilayer.sections import Field, SectionSpec, register, sections
+from bilayer.designs.design_file import FORMAT_VERSION, design_to_text, load_design, read_design, read_design_text, save_design
+from bilayer.core.errors import DesignFileError, InputError, SuspiciousInputWarning
+from bilayer.core.materials import ConstantCTE, InstantaneousCTETable, Material, MeanCTETable, default_library
+from bilayer.core.section_spec import Field, SectionSpec
+from bilayer.designs.sections import register, sections
 
 EXAMPLES = sorted((resources.files("bilayer") / "examples").iterdir(), key=lambda p: p.name)
 EXAMPLES = [p for p in EXAMPLES if p.name.endswith(".toml")]
@@ -364,8 +358,8 @@ def test_generated_designs_round_trip_exactly(design, system):
                              "temperature_difference", "density", "curvature", "time", "frequency"]),
        system=st.sampled_from(["si", "us"]))
 def test_exact_text_reads_back_identically(value, kind, system):
-    from bilayer.sections import exact_text
-    from bilayer.units import parse
+    from bilayer.core.section_spec import exact_text
+    from bilayer.core.units import parse
 
     text = exact_text(value, kind, system)
     assert parse(text, kind) == value

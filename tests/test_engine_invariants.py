@@ -9,8 +9,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 import bilayer as bl
-from bilayer.errors import SuspiciousInputWarning
-from bilayer.materials import Material
+from bilayer.core.errors import SuspiciousInputWarning
+from bilayer.core.materials import Material
 
 # random stacks include negative CTEs and extreme moduli on purpose; their warnings are expected
 pytestmark = pytest.mark.filterwarnings("ignore", category=SuspiciousInputWarning)

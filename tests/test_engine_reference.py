@@ -8,8 +8,8 @@ import numpy as np
 import pytest
 
 import bilayer as bl
-from bilayer import laminate
-from bilayer.materials import Material
+from bilayer.core import laminate
+from bilayer.core.materials import Material
 
 RNG = np.random.default_rng(1925)
 

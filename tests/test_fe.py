@@ -1,4 +1,4 @@
-"""2-D finite-element check (bilayer.fe) against the closed forms and exact properties of elasticity.
+"""2-D finite-element check (bilayer.strip.fe) against the closed forms and exact properties of elasticity.
 
 References:
 - the stack engine's closed form (Timoshenko 1925 / Hsueh 2002 transformed section, bilayer.evaluate),
@@ -14,10 +14,10 @@ import numpy as np
 import pytest
 
 import bilayer as bl
-from bilayer import laminate
-from bilayer.errors import InputError, SuspiciousInputWarning
-from bilayer.fe import MeshOptions, fe_check, refinement_study, strip_mesh
-from bilayer.materials import Material
+from bilayer.core import laminate
+from bilayer.core.errors import InputError, SuspiciousInputWarning
+from bilayer.strip.fe import MeshOptions, fe_check, refinement_study, strip_mesh
+from bilayer.core.materials import Material
 
 pytest.importorskip("skfem")
 pytestmark = pytest.mark.filterwarnings("ignore", category=SuspiciousInputWarning)

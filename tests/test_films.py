@@ -8,9 +8,10 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from bilayer import films, laminate
-from bilayer.errors import InputError
-from bilayer.sagitta import bow_from_curvature, curvature_from_bow
+from bilayer.films import stress as films
+from bilayer.core import laminate
+from bilayer.core.errors import InputError
+from bilayer.core.sagitta import bow_from_curvature, curvature_from_bow
 
 
 def engine_plate_film(h_s, h_f, M_s, M_f, misfit):
@@ -237,7 +238,7 @@ def test_thermal_film_stress_matches_stoney_in_the_thin_limit():
     + 4gr^3 + g^2 r^4) = 1 - 4gr + O(r^2) (derived from force and moment balance, checked with sympy);
     the curvature ratio equals the closed form of sec. 4.2."""
     from bilayer import Stack, Temperatures
-    from bilayer.materials import Material
+    from bilayer.core.materials import Material
 
     substrate = Material("substrate", 130e9, 0.28, 2.6e-6)
     film = Material("film", 200e9, 0.25, 12e-6)
@@ -257,8 +258,8 @@ def test_example_design_and_command_line(capsys):
     data were made with M_f = 360 GPa and alpha_f = 3.0 ppm/K, which the two-substrate fit recovers."""
     import json
 
-    from bilayer.cli import main
-    from bilayer.design_file import load_design
+    from bilayer.cli.main import main
+    from bilayer.designs.design_file import load_design
 
     assessment = films.assess_film_design(load_design(_example_path()))
     assert assessment.two_substrate.film_biaxial_modulus == pytest.approx(360e9, rel=2e-3)

@@ -1,10 +1,10 @@
-"""Interface shear-lag and peel models (bilayer.interface) against independent references.
+"""Interface shear-lag and peel models (bilayer.strip.interface) against independent references.
 
 References used here:
 - scipy.integrate.solve_bvp on the same differential equations in dimensionless form (a reference
   library solving the boundary-value problem numerically, independent of the closed forms);
-- the sympy derivation (bilayer.symbolic_interface) from the governing relations;
-- the stack engine (bilayer.laminate, Timoshenko/Hsueh transformed section) for the far-field forces;
+- the sympy derivation (bilayer.strip.derivation) from the governing relations;
+- the stack engine (bilayer.core.laminate, Timoshenko/Hsueh transformed section) for the far-field forces;
 - derived check values of layers.md sec. 5.4 (Example A stack) and applications.md sec. 5.1
   (aluminium/steel joint), each also reproduced here by solve_bvp or by a closed form checked against it;
 - invariants of layers.md sec. 9 items 15-16 (equilibrium, symmetry, limits).
@@ -18,10 +18,10 @@ from hypothesis import strategies as st
 from scipy.integrate import quad, solve_bvp
 
 import bilayer as bl
-from bilayer import laminate
-from bilayer.errors import InputError, SuspiciousInputWarning
-from bilayer.interface import interface_parameters, interface_stresses, peel_compliant, shear_lag
-from bilayer.materials import Material
+from bilayer.core import laminate
+from bilayer.core.errors import InputError, SuspiciousInputWarning
+from bilayer.strip.interface import interface_parameters, interface_stresses, peel_compliant, shear_lag
+from bilayer.core.materials import Material
 
 pytestmark = pytest.mark.filterwarnings("ignore", category=SuspiciousInputWarning)
 
@@ -228,9 +228,9 @@ def test_peel_matches_solve_bvp(name, stack, temps, state, bonds, length):
 
 
 def test_symbolic_derivation_gives_the_documented_coefficients():
-    """The sympy derivation from the governing relations (bilayer.symbolic_interface) reproduces
+    """The sympy derivation from the governing relations (bilayer.strip.derivation) reproduces
     lambda, Delta, chi of the numeric model for a bonded three-layer case with composite parts."""
-    from bilayer.symbolic_interface import shear_lag_derivation
+    from bilayer.strip.derivation import shear_lag_derivation
 
     d = shear_lag_derivation()
     stack = bl.Stack.of((LAYER_A, 0.4e-3), (LAYER_B, 0.2e-3), (BOND, 40e-6), (LAYER_A, 0.3e-3))
@@ -257,7 +257,7 @@ def test_symbolic_derivation_gives_the_documented_coefficients():
 def test_symbolic_closed_forms_equal_the_numeric_ones():
     """Lambdified sympy solutions (dsolve for T; ansatz plus linear solve for p) against the
     overflow-free numeric forms, at moderate k l and beta l."""
-    from bilayer.symbolic_interface import layer_compliance_derivation, numeric_peel, numeric_shear_lag, peel_derivation
+    from bilayer.strip.derivation import layer_compliance_derivation, numeric_peel, numeric_shear_lag, peel_derivation
 
     x = np.linspace(-3e-3, 3e-3, 301)
     T_sym, tau_sym = numeric_shear_lag()(x, 3e-3, 1.4e-7, 2e-14, -1.2e-3)
@@ -352,7 +352,7 @@ def test_peel_is_self_equilibrated(case):
 @given(interface_cases())
 def test_far_field_layer_forces_equal_the_engine(case):
     """Without bonds, a long strip carries the engine's layer forces at mid-length (Hsueh/Timoshenko
-    transformed section, bilayer.laminate), in every bending state."""
+    transformed section, bilayer.core.laminate), in every bending state."""
     stack, _, _, state, temps = case
     length = 400 * stack.total_thickness
     result = interface_stresses(stack, temps, length, state, x=[0.5 * length])
@@ -369,7 +369,7 @@ def test_far_field_layer_forces_equal_the_engine(case):
 
 def test_no_bending_far_field_equals_the_flat_engine_solution():
     """With bending suppressed, the far-field force is the force of the parts held flat: the engine's
-    'flat' restraint (bilayer.laminate) for single-layer parts, and equal part strains at each bond
+    'flat' restraint (bilayer.core.laminate) for single-layer parts, and equal part strains at each bond
     (part resultants from the engine) for composite parts."""
     stack = bl.Stack.of((LAYER_A, 0.4e-3), (BOND, 40e-6), (LAYER_B, 0.3e-3))
     result = interface_stresses(stack, HEATED, 0.2, bonds=[1], model="no_bending", x=[0.1])

@@ -1,18 +1,18 @@
 """The [interface] design-file section and the ``bilayer interface`` command: what they show equals
-direct core calls (bilayer.interface, bilayer.trust), errors name the key, exit codes follow docs/cli.md."""
+direct core calls (bilayer.strip.interface, bilayer.strip.fe_comparison), errors name the key, exit codes follow docs/cli.md."""
 import json
 from pathlib import Path
 
 import numpy as np
 import pytest
 
-from bilayer.cli import EXIT_INVALID_INPUT, EXIT_OK, main
-from bilayer.design_file import design_to_text, read_design_text
-from bilayer.errors import DesignFileError, InputError
-from bilayer.interface import interface_stresses
-from bilayer.interface_design import check_temperature, interface_for_design, trust_report_for_design
-from bilayer.stack import Temperatures
-from bilayer.units import format as show
+from bilayer.cli.main import EXIT_INVALID_INPUT, EXIT_OK, main
+from bilayer.designs.design_file import design_to_text, read_design_text
+from bilayer.core.errors import DesignFileError, InputError
+from bilayer.strip.interface import interface_stresses
+from bilayer.strip.assessment import check_temperature, interface_for_design, trust_report_for_design
+from bilayer.core.stack import Temperatures
+from bilayer.core.units import format as show
 
 EXAMPLE = Path(__file__).parents[1] / "bilayer" / "examples" / "sensor_die_on_alumina.toml"
 

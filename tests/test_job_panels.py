@@ -9,8 +9,8 @@ pytest.importorskip("ipywidgets")
 pytest.importorskip("matplotlib")
 
 import bilayer as bl  # noqa: E402
-from bilayer.design_file import read_design_text  # noqa: E402
-from bilayer.panels import StackExplorer  # noqa: E402
+from bilayer.designs.design_file import read_design_text
+from bilayer.panels import StackExplorer
 
 # ---------------------------------------------------------------------------------------------
 # Thermostat
@@ -60,7 +60,7 @@ def thermostat():
 
 
 def _direct_report(design):
-    from bilayer.thermostat_report import analyse
+    from bilayer.thermostat.assessment import analyse
 
     values = dict(design.sections["thermostat"])
     return analyse(design.with_section("thermostat", {**values, "monte_carlo": False}))
@@ -124,7 +124,7 @@ def test_thermostat_coil_asks_for_a_rotation_and_goal_switch(thermostat):
 
 
 def test_thermostat_monte_carlo_runs_behind_the_button(thermostat):
-    from bilayer.thermostat_report import analyse
+    from bilayer.thermostat.assessment import analyse
 
     explorer, panel = thermostat
     panel.scatter_button.click()
@@ -201,7 +201,7 @@ def solder():
 
 
 def test_solder_panel_is_the_modules_assessment(solder):
-    from bilayer.solder import assess_solder_design
+    from bilayer.solder.joint import assess_solder_design
 
     explorer, panel = solder
     direct = assess_solder_design(explorer.model.design)
@@ -270,7 +270,7 @@ def film():
 
 
 def test_film_panel_is_the_modules_assessment(film):
-    from bilayer.films import assess_film_design
+    from bilayer.films.stress import assess_film_design
 
     explorer, panel = film
     assert panel.assessment.to_dict() == assess_film_design(explorer.model.design).to_dict()
@@ -359,7 +359,7 @@ def adhesive():
 
 
 def test_adhesive_panel_is_the_modules_assessment(adhesive):
-    from bilayer.adhesive import assess_adhesive_design
+    from bilayer.adhesive.bond import assess_adhesive_design
 
     explorer, panel = adhesive
     assert panel.assessment.to_dict() == assess_adhesive_design(explorer.model.design).to_dict()
@@ -404,10 +404,10 @@ def test_fe_check_runs_in_the_background_and_matches_beam_theory():
     """A long strip (L/H = 20): 2-D plane-stress FE and the closed-form engine agree on the mid-length curvature
     within 0.5 % (issue 3 acceptance check; independent FE on scikit-fem)."""
     pytest.importorskip("skfem")
-    pytest.importorskip("bilayer.trust")
-    from bilayer.fe import MeshOptions
+    pytest.importorskip("bilayer.strip.fe_comparison")
+    from bilayer.strip.fe import MeshOptions
     from bilayer.panels.fe_check_panel import MESHES
-    from bilayer.trust import trust_report
+    from bilayer.strip.fe_comparison import trust_report
 
     explorer = StackExplorer()
     explorer.model.strip_length = 0.02

@@ -11,20 +11,9 @@ from pathlib import Path
 
 import pytest
 
-from bilayer.errors import DesignFileError, InputError, SuspiciousInputWarning, UnknownMaterialError
-from bilayer.materials import (
-    ConstantCTE,
-    InstantaneousCTETable,
-    Material,
-    MaterialLibrary,
-    MeanCTETable,
-    SiliconCTE,
-    default_library,
-    get_material,
-    load_material_file,
-    write_material_file,
-)
-from bilayer.materials.library import LIBRARY_FILE
+from bilayer.core.errors import DesignFileError, InputError, SuspiciousInputWarning, UnknownMaterialError
+from bilayer.core.materials import ConstantCTE, InstantaneousCTETable, Material, MaterialLibrary, MeanCTETable, SiliconCTE, default_library, get_material, load_material_file, write_material_file
+from bilayer.core.materials.library import LIBRARY_FILE
 
 C = 273.15
 ROOT = Path(__file__).resolve().parents[1]
@@ -424,7 +413,7 @@ def test_malformed_files_name_the_file_and_key(tmp_path, text, where):
 
 
 def test_unit_strings_go_through_bilayer_units(tmp_path):
-    pytest.importorskip("bilayer.units")
+    pytest.importorskip("bilayer.core.units")
     path = tmp_path / "units.toml"
     path.write_text(
         "[materials.a]\nname = 'A'\nyoungs_modulus = '29e6 psi'\npoisson_ratio = 0.3\n"
@@ -443,7 +432,7 @@ def test_unit_strings_go_through_bilayer_units(tmp_path):
 def test_importing_materials_is_cheap():
     """The data file is parsed on first use only, and no heavy library is imported."""
     code = (
-        "import sys, bilayer.materials as m\n"
+        "import sys, bilayer.core.materials as m\n"
         "assert m.default_library.cache_info().currsize == 0\n"
         "heavy = [n for n in ('pint', 'scipy', 'sympy') if n in sys.modules]\n"
         "assert not heavy, heavy\n"

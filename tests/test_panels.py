@@ -15,10 +15,10 @@ pytest.importorskip("ipywidgets")
 pytest.importorskip("matplotlib")
 
 import bilayer as bl  # noqa: E402
-from bilayer import plots  # noqa: E402
-from bilayer.panels import StackExplorer, example_design  # noqa: E402
-from bilayer.panels.stack_editor import CUSTOM  # noqa: E402
-from bilayer.units import format as format_quantity  # noqa: E402
+from bilayer import plots
+from bilayer.panels import StackExplorer, example_design
+from bilayer.panels.stack_editor import CUSTOM
+from bilayer.core.units import format as format_quantity
 
 
 @pytest.fixture
@@ -329,7 +329,7 @@ def test_tradeoff_view_marks_the_current_design_and_the_curvature_optimum():
 
 
 def test_interface_view_equals_the_interface_model(explorer):
-    from bilayer.interface import interface_stresses
+    from bilayer.strip.interface import interface_stresses
 
     explorer.show("interface")
     explorer.model.strip_length = 0.02

@@ -19,28 +19,16 @@ import numpy as np
 import pytest
 
 import bilayer as bl
-from bilayer.cautions import CAUTIONS
-from bilayer.cli import main
-from bilayer.design_cautions import cautions_for
-from bilayer.design_file import read_design
-from bilayer.errors import DesignFileError, InputError
-from bilayer.materials import Material, default_library
-from bilayer.sections import section
-from bilayer.record_check import Tolerance, check_record, compare_results, input_differences
-from bilayer.records import (
-    RECORD_FORMAT,
-    ReviewEntry,
-    append_review,
-    canonical_inputs,
-    inputs_hash,
-    make_record,
-    read_record,
-    read_record_text,
-    record_to_text,
-    save_record,
-    verify_review_log,
-)
-from bilayer.thermostat import THERMOSTAT_CAUTIONS
+from bilayer.core.cautions import CAUTIONS
+from bilayer.cli.main import main
+from bilayer.designs.jobs import cautions_for
+from bilayer.designs.design_file import read_design
+from bilayer.core.errors import DesignFileError, InputError
+from bilayer.core.materials import Material, default_library
+from bilayer.designs.sections import section
+from bilayer.records.check import Tolerance, check_record, compare_results, input_differences
+from bilayer.records.record import RECORD_FORMAT, ReviewEntry, append_review, canonical_inputs, inputs_hash, make_record, read_record, read_record_text, record_to_text, save_record, verify_review_log
+from bilayer.thermostat.element import THERMOSTAT_CAUTIONS
 
 ROOT = Path(__file__).resolve().parent.parent
 FORMAT1 = Path(__file__).parent / "data" / "record_format1.toml"

@@ -2,7 +2,7 @@
 
 External references: the report is parsed with the standard library's html.parser; embedded images
 are decoded and opened with Pillow (PNG) and xml.etree (SVG); quantities are compared with
-bilayer.units.format of the record's own SI values.
+bilayer.core.units.format of the record's own SI values.
 """
 from __future__ import annotations
 
@@ -19,13 +19,13 @@ pytest.importorskip("matplotlib")
 
 from PIL import Image  # noqa: E402
 
-from bilayer.cautions import CAUTIONS  # noqa: E402
-from bilayer.cli import main  # noqa: E402
-from bilayer.materials import default_library  # noqa: E402
-from bilayer.records import read_record  # noqa: E402
-from bilayer.report import equations, report_html  # noqa: E402
-from bilayer.thermostat import THERMOSTAT_CAUTIONS  # noqa: E402
-from bilayer.units import format as format_quantity  # noqa: E402
+from bilayer.core.cautions import CAUTIONS
+from bilayer.cli.main import main
+from bilayer.core.materials import default_library
+from bilayer.records.record import read_record
+from bilayer.report.html_report import equations, report_html
+from bilayer.thermostat.element import THERMOSTAT_CAUTIONS
+from bilayer.core.units import format as format_quantity
 
 EXAMPLE = Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 FORMAT1 = Path(__file__).parent / "data" / "record_format1.toml"

@@ -1,6 +1,6 @@
 """The review panel driven from Python: review state, on-screen differences, saving with the log kept.
 
-What the panel shows is checked against direct calls of bilayer.records / bilayer.record_check on
+What the panel shows is checked against direct calls of bilayer.records / bilayer.records.check on
 the same files (the panel must agree with the command line).
 """
 from __future__ import annotations
@@ -13,11 +13,11 @@ import pytest
 pytest.importorskip("ipywidgets")
 pytest.importorskip("matplotlib")
 
-from bilayer.cli import main  # noqa: E402
-from bilayer.panels import DesignModel, StackExplorer  # noqa: E402
-from bilayer.panels.review import ReviewPanel  # noqa: E402
-from bilayer.record_check import check_record, input_differences  # noqa: E402
-from bilayer.records import read_record, verify_review_log  # noqa: E402
+from bilayer.cli.main import main
+from bilayer.panels import DesignModel, StackExplorer
+from bilayer.panels.review import ReviewPanel
+from bilayer.records.check import check_record, input_differences
+from bilayer.records.record import read_record, verify_review_log
 
 EXAMPLE = Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 

@@ -10,9 +10,9 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from bilayer import solder
-from bilayer.errors import InputError, SuspiciousInputWarning
-from bilayer.materials import Material
+from bilayer.solder import joint as solder
+from bilayer.core.errors import InputError, SuspiciousInputWarning
+from bilayer.core.materials import Material
 
 C0 = 273.15
 
@@ -35,7 +35,7 @@ def test_dnp_strain_uses_integrated_cte_and_power_cycling_swings():
     """Secant CTE over the cycle: a linear alpha(T) integrates to its mid-range value (calculus); with
     different board and component swings dgamma = F L_D |a_s dT_s - a_c dT_c| / h (Engelmaier 1983
     power-cycling form, applications.md sec. 3.1)."""
-    from bilayer.materials import InstantaneousCTETable
+    from bilayer.core.materials import InstantaneousCTETable
 
     board = InstantaneousCTETable([200.0, 500.0], [12e-6, 18e-6])  # alpha linear in T
     low, high = 273.15, 373.15
@@ -261,8 +261,8 @@ def _example_path():
 
 def test_example_design_runs_and_matches_direct_calls():
     """The shipped example (invented) through the design file equals the direct API calls."""
-    from bilayer.design_file import load_design
-    from bilayer.materials import get_material
+    from bilayer.designs.design_file import load_design
+    from bilayer.core.materials import get_material
 
     design = load_design(_example_path())
     assessment = solder.assess_solder_design(design)
@@ -282,7 +282,7 @@ def test_example_design_runs_and_matches_direct_calls():
 def test_command_line_prints_convention_and_cautions(capsys):
     import json
 
-    from bilayer.cli import main
+    from bilayer.cli.main import main
 
     assert main(["solder", str(_example_path())]) == 0
     text = capsys.readouterr().out
@@ -296,8 +296,8 @@ def test_command_line_prints_convention_and_cautions(capsys):
 
 
 def test_design_file_section_errors_name_the_key():
-    from bilayer.design_file import read_design_text
-    from bilayer.errors import DesignFileError
+    from bilayer.designs.design_file import read_design_text
+    from bilayer.core.errors import DesignFileError
 
     text = _example_path().read_text()
     with pytest.raises(DesignFileError, match="standof"):

@@ -1,13 +1,13 @@
-"""Thickness-ratio sweep (bilayer.sweeps) against Timoshenko's optimum and direct engine calls."""
+"""Thickness-ratio sweep (bilayer.strip.ratio_sweep) against Timoshenko's optimum and direct engine calls."""
 import math
 
 import numpy as np
 import pytest
 
 import bilayer as bl
-from bilayer.interface import interface_stresses
-from bilayer.materials import Material
-from bilayer.sweeps import thickness_ratio_sweep
+from bilayer.strip.interface import interface_stresses
+from bilayer.core.materials import Material
+from bilayer.strip.ratio_sweep import thickness_ratio_sweep
 
 
 def _design():

@@ -1,4 +1,4 @@
-"""Tests of bilayer.symbolic: the sympy-derived n-layer strip solution and its exact sensitivities.
+"""Tests of bilayer.core.symbolic: the sympy-derived n-layer strip solution and its exact sensitivities.
 
 References used (each check names its own):
 * S. Timoshenko, "Analysis of bi-metal thermostats", J. Opt. Soc. Am. 11(3):233-255 (1925): bimetal
@@ -26,8 +26,8 @@ import sympy as sp
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from bilayer import symbolic
-from bilayer.errors import InputError
+from bilayer.core import symbolic
+from bilayer.core.errors import InputError
 
 REPOSITORY = Path(__file__).resolve().parents[1]
 
@@ -249,9 +249,9 @@ def test_n_layer_solution_satisfies_force_and_moment_balance(n):
 
 @pytest.mark.parametrize("n", [1, 2, 5, 10])
 def test_agrees_with_the_numeric_laminate_backend(n):
-    """Cross-check of backends (no external reference): lambdified symbolic solution vs bilayer.laminate.solve
+    """Cross-check of backends (no external reference): lambdified symbolic solution vs bilayer.core.laminate.solve
     with free strains a_i dT, loads included."""
-    from bilayer import laminate
+    from bilayer.core import laminate
 
     rng = np.random.default_rng(40 + n)
     Y, t, a, dT = random_stacks(rng, 300, n)
@@ -493,7 +493,7 @@ def test_derivation_and_sensitivities_are_cached():
 def test_ten_layer_derivation_is_fast():
     """The generic-sum derivation keeps n = 10 well below the 5 s slow-test limit (fresh interpreter,
     sympy import included; measured ~0.6 s)."""
-    code = ("import time; t = time.perf_counter(); from bilayer import symbolic; s = symbolic.derive(10); "
+    code = ("import time; t = time.perf_counter(); from bilayer.core import symbolic; s = symbolic.derive(10); "
             "print(time.perf_counter() - t, len(s.stress_top))")
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True,
                          cwd=REPOSITORY)
@@ -532,7 +532,7 @@ def test_numeric_functions_broadcast_over_batches():
 
 
 def test_import_does_not_load_sympy():
-    code = "import sys, bilayer.symbolic; print('sympy' in sys.modules)"
+    code = "import sys, bilayer.core.symbolic; print('sympy' in sys.modules)"
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True,
                          cwd=REPOSITORY)
     assert out.stdout.strip() == "False"

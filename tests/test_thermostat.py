@@ -16,21 +16,11 @@ from scipy.integrate import quad
 from scipy.optimize import brentq
 
 import bilayer as bl
-from bilayer.errors import InputError
-from bilayer.materials import InstantaneousCTETable
-from bilayer.thermostat import (
-    THERMOSTAT_CAUTIONS,
-    ThermalElement,
-    closing_temperature,
-    contact_load,
-    gap_for_set_point,
-    meeting_temperature,
-    response,
-    work_output,
-    working_span,
-)
-from bilayer.thermostat_elements import Cantilever, FlatDisc, Helix, Spiral, SupportedStrip, UShape
-from bilayer.thermostat_strip import DatasheetStrip, Flexivity, ThermostatStrip
+from bilayer.core.errors import InputError
+from bilayer.core.materials import InstantaneousCTETable
+from bilayer.thermostat.element import THERMOSTAT_CAUTIONS, ThermalElement, closing_temperature, contact_load, gap_for_set_point, meeting_temperature, response, work_output, working_span
+from bilayer.thermostat.forms import Cantilever, FlatDisc, Helix, Spiral, SupportedStrip, UShape
+from bilayer.thermostat.strip import DatasheetStrip, Flexivity, ThermostatStrip
 
 T0 = 293.15
 
@@ -90,7 +80,7 @@ def test_datasheet_flexivity_accepts_unit_strings():
 def test_flexivity_at_optimum_ratio_is_one_and_a_half_cte_difference(n):
     """Timoshenko (1925): at t1/t2 = sqrt(E2/E1) the curvature is 3 da dT / (2h) for ANY modulus ratio,
     so the flexivity is exactly 1.5 da. Engine strip built at the design helper's optimum ratio."""
-    from bilayer.thermostat_design import optimum_thickness_ratio
+    from bilayer.thermostat.sizing import optimum_thickness_ratio
 
     low, high = material("low", n * 60e9, 0.3, 2e-6), material("high", 60e9, 0.3, 20e-6)
     result = optimum_thickness_ratio(low, high, total_thickness=0.6e-3)
@@ -116,7 +106,7 @@ def test_temperature_dependent_cte_is_integrated():
 
 def test_range_outside_cte_data_is_warned():
     """The engine warns when the range leaves a material's CTE data (design rule, applications.md 7)."""
-    pytest.importorskip("bilayer.units")
+    pytest.importorskip("bilayer.core.units")
     high = bl.Material("rising", 150e9, 0.3, InstantaneousCTETable((250.0, 450.0), (15e-6, 20e-6)))
     strip = ThermostatStrip(bl.Stack.of((material("flat", 150e9, 0.3, 1.5e-6), 0.3e-3), (high, 0.3e-3)), 5e-3, T0)
     curve = response(ThermalElement(strip, Cantilever(0.03)), np.linspace(280.0, 600.0, 50))

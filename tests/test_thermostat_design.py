@@ -12,12 +12,12 @@ import pytest
 from scipy.optimize import minimize_scalar
 
 import bilayer as bl
-from bilayer.errors import InputError
-from bilayer.snap_disc import SNAP_DISC_LIMITS, SnapDisc, equilibrium_thermal_curvature, snap_temperatures
-from bilayer.thermostat import closing_temperature, contact_load
-from bilayer.thermostat_design import rank_pairs, size_element
-from bilayer.thermostat_elements import Cantilever
-from bilayer.thermostat_strip import DatasheetStrip, Flexivity, ThermostatStrip
+from bilayer.core.errors import InputError
+from bilayer.thermostat.snap_disc import SNAP_DISC_LIMITS, SnapDisc, equilibrium_thermal_curvature, snap_temperatures
+from bilayer.thermostat.element import closing_temperature, contact_load
+from bilayer.thermostat.sizing import rank_pairs, size_element
+from bilayer.thermostat.forms import Cantilever
+from bilayer.thermostat.strip import DatasheetStrip, Flexivity, ThermostatStrip
 
 T0 = 293.15
 

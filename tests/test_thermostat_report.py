@@ -11,10 +11,10 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from bilayer.design_file import load_design, read_design_text
-from bilayer.errors import DesignFileError
-from bilayer.thermostat import closing_temperature
-from bilayer.thermostat_report import analyse, element_from_design
+from bilayer.designs.design_file import load_design, read_design_text
+from bilayer.core.errors import DesignFileError
+from bilayer.thermostat.element import closing_temperature
+from bilayer.thermostat.assessment import analyse, element_from_design
 
 EXAMPLE = Path(__file__).resolve().parents[1] / "bilayer" / "examples" / "propagator_heat_mat_cutout.toml"
 
@@ -106,7 +106,7 @@ def test_bad_thermostat_sections_name_the_key(extra, key):
 
 
 def test_command_line_runs_the_example(capsys):
-    from bilayer.cli import main
+    from bilayer.cli.main import main
 
     assert main(["thermostat", str(EXAMPLE), "--no-monte-carlo", "--units", "us"]) == 0
     out = capsys.readouterr().out
@@ -118,7 +118,7 @@ def test_command_line_runs_the_example(capsys):
 
 
 def test_command_line_refuses_a_design_without_thermostat_table(tmp_path, capsys):
-    from bilayer.cli import main
+    from bilayer.cli.main import main
 
     path = tmp_path / "plain.toml"
     path.write_text(BASE)
@@ -129,7 +129,7 @@ def test_command_line_refuses_a_design_without_thermostat_table(tmp_path, capsys
 def test_sizing_from_a_design_file_meets_both_targets():
     """sizing_force: the sized element closes `gap` at `set_point` and pushes `sizing_force` after the
     overtravel (checked by direct calls on the sized element)."""
-    from bilayer.thermostat import contact_load
+    from bilayer.thermostat.element import contact_load
 
     design = read_design_text(BASE + """
 [thermostat]
@@ -150,7 +150,7 @@ limit_stress = "300 MPa"
 
 
 def test_command_line_design_helpers(capsys):
-    from bilayer.cli import main
+    from bilayer.cli.main import main
 
     assert main(["thermostat", str(EXAMPLE), "--no-monte-carlo", "--optimum-ratio", "--rank-pairs", "flexivity",
                  "--json"]) == 0

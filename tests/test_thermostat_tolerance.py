@@ -12,11 +12,11 @@ import numpy as np
 import pytest
 
 import bilayer as bl
-from bilayer.errors import InputError
-from bilayer.thermostat import ThermalElement, closing_temperature, gap_for_set_point
-from bilayer.thermostat_elements import Cantilever, UShape
-from bilayer.thermostat_strip import DatasheetStrip, Flexivity, ThermostatStrip
-from bilayer.tolerance import Tolerance, first_order_set_point, monte_carlo_set_point, tolerance_keys
+from bilayer.core.errors import InputError
+from bilayer.thermostat.element import ThermalElement, closing_temperature, gap_for_set_point
+from bilayer.thermostat.forms import Cantilever, UShape
+from bilayer.thermostat.strip import DatasheetStrip, Flexivity, ThermostatStrip
+from bilayer.thermostat.tolerances import Tolerance, first_order_set_point, monte_carlo_set_point, tolerance_keys
 
 T0 = 293.15
 

@@ -1,4 +1,4 @@
-"""Trust report (bilayer.trust): closed forms against FE side by side, with flags.
+"""Trust report (bilayer.strip.fe_comparison): closed forms against FE side by side, with flags.
 
 References: the engine closed form and the FE check (both tested on their own in test_engine_*.py and
 test_fe.py); Dundurs parameters against their equivalent textbook forms (alpha = (E1' - E2')/(E1' + E2'),
@@ -11,9 +11,9 @@ import numpy as np
 import pytest
 
 import bilayer as bl
-from bilayer.errors import InputError, SuspiciousInputWarning
-from bilayer.materials import Material
-from bilayer.trust import dundurs_parameters, trust_report
+from bilayer.core.errors import InputError, SuspiciousInputWarning
+from bilayer.core.materials import Material
+from bilayer.strip.fe_comparison import dundurs_parameters, trust_report
 
 pytest.importorskip("skfem")
 pytestmark = pytest.mark.filterwarnings("ignore", category=SuspiciousInputWarning)

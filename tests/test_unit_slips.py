@@ -4,10 +4,10 @@ import warnings
 import pytest
 
 import bilayer as bl
-from bilayer.design_file import read_design_text
-from bilayer.errors import SuspiciousInputWarning
-from bilayer.materials import Material
-from bilayer.materials.library import warn_if_unit_slip
+from bilayer.designs.design_file import read_design_text
+from bilayer.core.errors import SuspiciousInputWarning
+from bilayer.core.materials import Material
+from bilayer.core.materials.library import warn_if_unit_slip
 
 
 def test_per_degf_cte_typed_as_per_kelvin_warns():

@@ -1,4 +1,4 @@
-"""Unit parsing and display (bilayer.units).
+"""Unit parsing and display (bilayer.core.units).
 
 Reference values: the inch is exactly 25.4 mm and the pound exactly 0.45359237 kg (international
 yard and pound agreement, 1959); standard gravity is exactly 9.80665 m/s^2 (3rd CGPM, 1901); a
@@ -16,8 +16,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from bilayer.errors import InputError, UnitError
-from bilayer.units import KINDS, UNIT_SYSTEMS, display_unit, format, from_si, kind_info, parse, to_display
+from bilayer.core.errors import InputError, UnitError
+from bilayer.core.units import KINDS, UNIT_SYSTEMS, display_unit, format, from_si, kind_info, parse, to_display
 
 PSI = Fraction("0.45359237") * Fraction("9.80665") / Fraction("0.0254") ** 2  # Pa, exact (1959 + CGPM)
 
@@ -247,7 +247,7 @@ def test_kind_info_lists_examples():
 
 
 def test_pint_is_not_imported_by_bilayer():
-    """Import cost: pint loads on the first unit text, not on `import bilayer` or `import bilayer.units`."""
-    code = "import sys, bilayer, bilayer.units; print('pint' in sys.modules)"
+    """Import cost: pint loads on the first unit text, not on `import bilayer` or `import bilayer.core.units`."""
+    code = "import sys, bilayer, bilayer.core.units; print('pint' in sys.modules)"
     output = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True).stdout
     assert output.strip() == "False"

@@ -15,7 +15,7 @@ NOTEBOOK = Path(__file__).resolve().parent.parent / "notebooks" / "start_here.ip
 
 EXPORT = """
 from pathlib import Path as _Path
-from bilayer.cautions import cautions_text as _cautions
+from bilayer.core.cautions import cautions_text as _cautions
 _out = _Path({out!r})
 for _name in ("stress", "shape", "interface", "tradeoff"):
     _view = getattr(explorer, _name)

@@ -16,8 +16,8 @@ import numpy as np
 import traitlets
 
 from .. import plots
-from ..errors import BilayerError
-from ..stack import Design
+from ..core.errors import BilayerError
+from ..core.stack import Design
 
 __all__ = ["DesignModel", "QuantityField", "FigureImage", "View", "message_html", "capture_warnings"]
 
@@ -94,7 +94,7 @@ class DesignModel(traitlets.HasTraits):
         """The current design reduced to the operating temperature on show (for single-case models)."""
         if self.case_index is None:
             return self.design
-        from ..stack import Temperatures
+        from ..core.stack import Temperatures
 
         temperatures = self.design.temperatures
         return self.design.replace(temperatures=Temperatures(temperatures.stress_free,
@@ -128,7 +128,7 @@ class QuantityField:
         text = self.text.value
         if self._exact is not None and text == self._exact[0]:
             return self._exact[1]
-        from ..units import parse
+        from ..core.units import parse
 
         if self.allow_list and "," in text:
             items = [item.strip() for item in text.split(",")]
@@ -137,7 +137,7 @@ class QuantityField:
 
     def show(self, value_si, system: str) -> None:
         """Write ``value_si`` (a number, or a sequence when lists are allowed) in ``system`` units."""
-        from ..units import format as format_quantity
+        from ..core.units import format as format_quantity
 
         if np.ndim(value_si):
             values = np.array(value_si, float)

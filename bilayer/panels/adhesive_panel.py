@@ -56,7 +56,7 @@ class AdhesivePanel(JobPanel):
         return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
-        from ..adhesive import ADHESIVE_CAUTIONS
+        from ..adhesive.bond import ADHESIVE_CAUTIONS
 
         return ADHESIVE_CAUTIONS
 
@@ -64,13 +64,13 @@ class AdhesivePanel(JobPanel):
         return self.grouped_controls(GROUPS)
 
     def compute(self, design):
-        from ..adhesive import assess_adhesive_design
+        from ..adhesive.bond import assess_adhesive_design
 
         return assess_adhesive_design(design)
 
     def report_text(self, assessment) -> str:
-        from ..adhesive import ADHESIVE_CAUTIONS
-        from ..commands.bond import report
+        from ..adhesive.bond import ADHESIVE_CAUTIONS
+        from ..cli.bond import report
 
         return self.report_without_cautions(report, assessment, ADHESIVE_CAUTIONS)
 

@@ -1,6 +1,6 @@
 """Save and load design files from the panels.
 
-Saving writes the model's current design with :func:`bilayer.design_file.save_design` (atomic: a
+Saving writes the model's current design with :func:`bilayer.designs.design_file.save_design` (atomic: a
 temporary file, then a rename). It refuses while an entry is invalid, so a file never silently
 holds something other than what is on screen; the typed entries stay as they are. It also refuses
 to overwrite a reviewed design record (a file with ``[record]`` or ``[[review]]`` tables): that is
@@ -14,7 +14,7 @@ from typing import Callable
 
 import ipywidgets as widgets
 
-from ..errors import BilayerError
+from ..core.errors import BilayerError
 from ._base import DesignModel, message_html
 
 __all__ = ["DesignFilePanel"]
@@ -42,7 +42,7 @@ class DesignFilePanel(widgets.VBox):
         if pending:
             self.message.value = message_html(f"Not saved: {pending}")
             return False
-        from ..design_file import save_design
+        from ..designs.design_file import save_design
 
         path = Path(self.path.value.strip()).expanduser()
         if _is_record(path):
@@ -60,7 +60,7 @@ class DesignFilePanel(widgets.VBox):
 
     def load(self) -> bool:
         """Read a design file and make it current; returns True on success."""
-        from ..design_file import load_design
+        from ..designs.design_file import load_design
 
         path = Path(self.path.value.strip()).expanduser()
         try:

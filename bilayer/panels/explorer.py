@@ -6,7 +6,7 @@ from __future__ import annotations
 
 import ipywidgets as widgets
 
-from ..stack import Design, Layer, Stack, Temperatures
+from ..core.stack import Design, Layer, Stack, Temperatures
 from ._base import DesignModel
 from .design_files import DesignFilePanel
 from .fe_check_panel import FECheckPanel
@@ -106,7 +106,7 @@ class StackExplorer(widgets.VBox):
     def add_job(self, job: str) -> widgets.Widget:
         """Add the panel of a job ("thermostat", ...) as a tab sharing this explorer's design."""
         if job not in JOB_PANELS:
-            from ..errors import InputError
+            from ..core.errors import InputError
 
             raise InputError("job", job, "one of " + ", ".join(JOB_PANELS))
         if job not in self.jobs:

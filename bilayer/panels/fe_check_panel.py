@@ -1,6 +1,6 @@
 """Finite-element check panel: the closed forms against a 2-D finite-element model of the same strip.
 
-The run (:func:`bilayer.trust.trust_report`: engine, interface model and scikit-fem, optionally on two
+The run (:func:`bilayer.strip.fe_comparison.trust_report`: engine, interface model and scikit-fem, optionally on two
 meshes) takes seconds, so it waits behind a button and runs in a background thread with a progress
 bar; typing in the other panels stays responsive. The strip length and bond layers are the ones of the
 interface tab. When the design changes after a run, the panel says the figures are out of date.
@@ -13,13 +13,13 @@ from html import escape
 import ipywidgets as widgets
 
 from .. import plots
-from ..errors import BilayerError
+from ..core.errors import BilayerError
 from ._base import DesignModel, FigureImage, message_html
 
 __all__ = ["FECheckPanel", "MESHES"]
 
 MESHES = {"coarse": dict(layer_elements=4, growth=1.5), "default": {}, "fine": dict(layer_elements=12, growth=1.2)}
-"""Mesh densities offered (keyword arguments of :class:`bilayer.fe.MeshOptions`)."""
+"""Mesh densities offered (keyword arguments of :class:`bilayer.strip.fe.MeshOptions`)."""
 
 
 class FECheckPanel(widgets.VBox):
@@ -63,7 +63,7 @@ class FECheckPanel(widgets.VBox):
         """Start the FE check in a background thread (returns it; a running check is not restarted)."""
         if self.thread is not None and self.thread.is_alive():
             return self.thread
-        from ..fe import MeshOptions
+        from ..strip.fe import MeshOptions
 
         design, length, bonds = inputs = self._inputs()
         mesh = MeshOptions(**MESHES[self.mesh.value])
@@ -78,7 +78,7 @@ class FECheckPanel(widgets.VBox):
             self.status.value = message_html(message, "info")
 
         def work() -> None:
-            from ..trust import trust_report
+            from ..strip.fe_comparison import trust_report
 
             try:
                 report = trust_report(design.stack, design.temperatures, length, design.state, bonds=bonds,
@@ -101,7 +101,7 @@ class FECheckPanel(widgets.VBox):
             self.status.value = message_html("The design changed since this check: run it again.", "note")
 
     def _show(self) -> None:
-        from ..units import format as fmt
+        from ..core.units import format as fmt
 
         report, system = self.report, self.model.system
         plots.closed_form_against_fe(report, system, figure=self.image.figure)

@@ -49,7 +49,7 @@ class FilmPanel(JobPanel):
         return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
-        from ..cautions import CAUTIONS
+        from ..core.cautions import CAUTIONS
 
         return tuple(CAUTIONS)
 
@@ -57,17 +57,17 @@ class FilmPanel(JobPanel):
         return self.grouped_controls(GROUPS)
 
     def compute(self, design):
-        from ..films import assess_film_design
+        from ..films.stress import assess_film_design
 
         return assess_film_design(design)
 
     def report_text(self, assessment) -> str:
-        from ..commands.film import report
+        from ..cli.film import report
 
         return self.report_without_cautions(report, assessment)
 
     def render(self, assessment) -> None:
-        from ..films import stoney_curvature_ratio, stoney_stress_ratio
+        from ..films.stress import stoney_curvature_ratio, stoney_stress_ratio
 
         thermal = assessment.thermal
         substrate, film = self.current_design().stack.layers

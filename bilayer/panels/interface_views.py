@@ -1,7 +1,7 @@
 """Views along the strip: interface shear and peel near the free ends, and the trade-off between
 curvature and peak interface shear over the thickness ratio.
 
-Both call the interface model (:mod:`bilayer.interface`) for the current design, the shared strip
+Both call the interface model (:mod:`bilayer.strip.interface`) for the current design, the shared strip
 length and the bond layers chosen here.
 """
 from __future__ import annotations
@@ -12,9 +12,9 @@ import ipywidgets as widgets
 import numpy as np
 
 from .. import plots
-from ..errors import BilayerError
-from ..stack import Stack
-from ..sweeps import thickness_ratio_sweep
+from ..core.errors import BilayerError
+from ..core.stack import Stack
+from ..strip.ratio_sweep import thickness_ratio_sweep
 from ._base import DesignModel, FigureImage, View, message_html
 from .views import StripLengthField, _fmt
 
@@ -89,7 +89,7 @@ class InterfaceView(View):
 
     def compute(self):
         """The interface model for the current design (one core call)."""
-        from ..interface import interface_stresses
+        from ..strip.interface import interface_stresses
 
         design = self.model.case_design()
         return interface_stresses(design.stack, design.temperatures, self.model.strip_length, design.state,

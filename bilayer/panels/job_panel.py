@@ -14,7 +14,7 @@ from typing import Any
 
 import ipywidgets as widgets
 
-from ..errors import BilayerError
+from ..core.errors import BilayerError
 from ._base import DesignModel, FigureImage, View, message_html
 from .section_form import SectionForm
 
@@ -76,7 +76,7 @@ class JobPanel(View):
     def report_without_cautions(self, report, assessment, extra_cautions=()) -> str:
         """The command line's ``report`` of this assessment, less its closing cautions (shown in the box
         above the entries)."""
-        from ..cautions import cautions_text
+        from ..core.cautions import cautions_text
 
         text = report(self.current_design(), assessment, self.model.system)
         for cautions in (cautions_text(extra_cautions), cautions_text()):
@@ -150,7 +150,7 @@ class JobPanel(View):
         design = self.model.design
         if self.section in design.sections:
             return design
-        from ..sections import section
+        from ..designs.sections import section
 
         return design.with_section(self.section, section(self.section).normalise(self.defaults))
 

@@ -24,10 +24,10 @@ from typing import Callable
 
 import ipywidgets as widgets
 
-from ..errors import BilayerError
-from ..record_check import Difference, Tolerance, compare_results, input_differences
-from ..records import DesignRecord, append_review, make_record, read_record, save_record
-from ..sections.record import VERDICTS
+from ..core.errors import BilayerError
+from ..records.check import Difference, Tolerance, compare_results, input_differences
+from ..records.record import DesignRecord, append_review, make_record, read_record, save_record
+from ..records.section import VERDICTS
 from ._base import DesignModel, message_html
 
 __all__ = ["ReviewPanel"]
@@ -114,7 +114,7 @@ class ReviewPanel(widgets.VBox):
         path = self._file()
         try:
             reviews = self._reviews_on_disk(path)
-            from ..design_cautions import cautions_for
+            from ..designs.jobs import cautions_for
 
             support = self.support() if self.support is not None else None
             record = make_record(self.model.design, reviews=reviews, cautions=cautions_for(self.model.design),
@@ -135,7 +135,7 @@ class ReviewPanel(widgets.VBox):
         a file that cannot be read (so it is never overwritten)."""
         if not path.exists():
             return ()
-        from ..design_file import read_design
+        from ..designs.design_file import read_design
 
         document = read_design(path)
         if "record" not in document.extra:

@@ -1,6 +1,6 @@
 """Entry forms for a job section of the design (``[thermostat]``, ``[solder_joint]``, ...).
 
-A :class:`SectionForm` builds one control per field of the section's :class:`~bilayer.sections.SectionSpec`:
+A :class:`SectionForm` builds one control per field of the section's :class:`~bilayer.designs.sections.SectionSpec`:
 a text box with units for physical quantities (blank = not given), a dropdown for choices, a check box
 for yes/no, a plain text box for texts and integers. ``values()`` turns the entries into the SI values
 the design file would hold and validates them with the spec (defaults filled in), so a panel checks a
@@ -12,7 +12,7 @@ from typing import Callable, Iterable, Mapping
 
 import ipywidgets as widgets
 
-from ..errors import BilayerError, InputError
+from ..core.errors import BilayerError, InputError
 from ._base import QuantityField
 
 __all__ = ["SectionForm"]
@@ -57,7 +57,7 @@ class _Entry:
         if not text:
             return None
         if field.shape != "scalar":
-            from ..units import parse
+            from ..core.units import parse
 
             items = [item.strip() for item in text.split(",") if item.strip()]
             if field.kind == "text":
@@ -82,7 +82,7 @@ class _Entry:
             if value is None:
                 self.widget.value = ""
             elif field.shape != "scalar" and field.kind not in ("text",):
-                from ..units import format as format_quantity
+                from ..core.units import format as format_quantity
 
                 self.widget.value = ", ".join(format_quantity(v, field.kind, system=system, digits=6) for v in value)
             elif field.shape != "scalar":
@@ -114,7 +114,7 @@ class SectionForm:
 
     def __init__(self, section_name: str, names: Iterable[str], system: str = "si",
                  labels: Mapping[str, str] | None = None, on_change: Callable[[], None] | None = None):
-        from ..sections import section
+        from ..designs.sections import section
 
         self.spec = section(section_name)
         self.name = section_name

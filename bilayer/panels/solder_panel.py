@@ -64,24 +64,24 @@ class SolderPanel(JobPanel):
         return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
-        from ..solder import SOLDER_CAUTIONS
+        from ..solder.joint import SOLDER_CAUTIONS
 
         return SOLDER_CAUTIONS
 
     def controls(self) -> widgets.Widget:
-        from ..solder import CYCLING_PRESETS
+        from ..solder.joint import CYCLING_PRESETS
 
         self.form.entries["test_cycle"].widget.placeholder = "one of " + ", ".join(CYCLING_PRESETS)
         return self.grouped_controls(GROUPS)
 
     def compute(self, design):
-        from ..solder import assess_solder_design
+        from ..solder.joint import assess_solder_design
 
         return assess_solder_design(design)
 
     def report_text(self, assessment) -> str:
-        from ..commands.solder import report
-        from ..solder import SOLDER_CAUTIONS
+        from ..cli.solder import report
+        from ..solder.joint import SOLDER_CAUTIONS
 
         return self.report_without_cautions(report, assessment, SOLDER_CAUTIONS)
 
@@ -91,7 +91,7 @@ class SolderPanel(JobPanel):
         marks = [("field median", joint.median_life, 0.5),
                  (f"field {100 * joint.early_fraction:g} %", joint.early_life, joint.early_fraction)]
         if joint.test_median_life is not None:
-            from ..solder import weibull_scale
+            from ..solder.joint import weibull_scale
 
             populations.append((f"test cycle {joint.test.label}", weibull_scale(joint.test_median_life,
                                                                                   joint.weibull_shape),

@@ -2,7 +2,7 @@
 bending state, stress-free and operating temperatures.
 
 Every entry is a text box that keeps what was typed. After each change the editor rebuilds an
-immutable :class:`~bilayer.stack.Design` from all entries and proposes it to the model. An entry
+immutable :class:`~bilayer.core.stack.Design` from all entries and proposes it to the model. An entry
 that does not parse, or a design the engine refuses, shows its message beside the entry and the
 views keep the last valid design.
 """
@@ -14,13 +14,13 @@ from typing import TYPE_CHECKING
 import ipywidgets as widgets
 import numpy as np
 
-from ..errors import BilayerError
-from ..stack import BendingState, Layer, Stack, Temperatures
-from ..units import display_unit, from_si, to_si
+from ..core.errors import BilayerError
+from ..core.stack import BendingState, Layer, Stack, Temperatures
+from ..core.units import display_unit, from_si, to_si
 from ._base import DesignModel, QuantityField, capture_warnings, message_html
 
 if TYPE_CHECKING:  # pragma: no cover
-    from ..materials import Material, MaterialLibrary
+    from ..core.materials import Material, MaterialLibrary
 
 __all__ = ["StackEditor", "LayerRow", "CUSTOM"]
 
@@ -117,7 +117,7 @@ class LayerRow:
             return self.editor.library[self.material.value]
         if self._custom_texts is not None and self._custom_snapshot() == self._custom_texts:
             return self.original  # untouched custom material: keep it whole (CTE tables included)
-        from ..materials import Material
+        from ..core.materials import Material
 
         return Material(
             name=self.custom_name.value.strip() or "custom material",
@@ -145,7 +145,7 @@ class StackEditor(widgets.VBox):
     """Edits the stack, bending state and temperatures of the model's current design."""
 
     def __init__(self, model: DesignModel, library: "MaterialLibrary | None" = None):
-        from ..materials import default_library
+        from ..core.materials import default_library
 
         super().__init__()
         self.model = model

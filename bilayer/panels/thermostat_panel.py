@@ -3,7 +3,7 @@ tolerances; travel against temperature and the element report, live; the Monte C
 set point behind a button with a progress bar.
 
 Entries fill the design's ``[thermostat]`` section (checked by the same spec as a design file), and
-the report is :func:`bilayer.thermostat_report.analyse` of the current design: the panel computes
+the report is :func:`bilayer.thermostat.assessment.analyse` of the current design: the panel computes
 nothing itself. Thermal cut-outs and protectors are safety devices; the cautions stay on screen.
 """
 from __future__ import annotations
@@ -14,7 +14,7 @@ from html import escape
 import ipywidgets as widgets
 
 from .. import plots
-from ..errors import BilayerError
+from ..core.errors import BilayerError
 from ._base import DesignModel, message_html
 from .job_panel import JobPanel
 
@@ -88,11 +88,11 @@ class ThermostatPanel(JobPanel):
 
     @property
     def report(self):
-        """The element report on screen (:class:`bilayer.thermostat_report.ThermostatReport`)."""
+        """The element report on screen (:class:`bilayer.thermostat.assessment.ThermostatReport`)."""
         return self.latest()
 
     def cautions(self) -> tuple[str, ...]:
-        from ..thermostat import THERMOSTAT_CAUTIONS
+        from ..thermostat.element import THERMOSTAT_CAUTIONS
 
         return THERMOSTAT_CAUTIONS
 
@@ -130,7 +130,7 @@ class ThermostatPanel(JobPanel):
 
     def compute(self, design):
         """The element report without the Monte Carlo run (that one waits for the button)."""
-        from ..thermostat_report import analyse
+        from ..thermostat.assessment import analyse
 
         values = dict(design.sections["thermostat"])
         return analyse(design.with_section("thermostat", {**values, "monte_carlo": False}))
@@ -162,7 +162,7 @@ class ThermostatPanel(JobPanel):
             self.progress.value = done
 
         def work() -> None:
-            from ..thermostat_report import analyse
+            from ..thermostat.assessment import analyse
 
             try:
                 report = analyse(design.with_section("thermostat", {**values, "monte_carlo": True}), progress=progress)
@@ -186,7 +186,7 @@ class ThermostatPanel(JobPanel):
                 design.stack != self.model.design.stack:
             self.scatter.value = message_html("The design changed during the run; run it again.", "note")
             return
-        from ..units import format as fmt
+        from ..core.units import format as fmt
 
         system = self.model.system
         self.scatter_result = stats

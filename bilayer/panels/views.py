@@ -9,7 +9,7 @@ import ipywidgets as widgets
 import numpy as np
 
 from .. import plots
-from ..errors import BilayerError
+from ..core.errors import BilayerError
 from ._base import DesignModel, FigureImage, QuantityField, View, message_html
 
 __all__ = ["ResultTable", "StressView", "ShapeView", "SignConventionSketch", "UnitSystemSwitch", "caution_html"]
@@ -18,7 +18,7 @@ __all__ = ["ResultTable", "StressView", "ShapeView", "SignConventionSketch", "Un
 def caution_html() -> str:
     """The project's cautions as a small grey paragraph (empty if the cautions module is absent)."""
     try:
-        from ..cautions import CAUTIONS
+        from ..core.cautions import CAUTIONS
     except ImportError:  # pragma: no cover - arrives with the engine issue
         return ""
     text = " ".join(CAUTIONS) if not isinstance(CAUTIONS, str) else CAUTIONS
@@ -26,7 +26,7 @@ def caution_html() -> str:
 
 
 def _fmt(value: float, kind: str, system: str) -> str:
-    from ..units import format as format_quantity
+    from ..core.units import format as format_quantity
 
     return format_quantity(value, kind, system=system, digits=4)
 
@@ -139,7 +139,7 @@ class StripLengthField:
         try:
             value = self.field.value()
             if not 0 < value <= 100:
-                from ..errors import InputError
+                from ..core.errors import InputError
 
                 raise InputError("strip_length", value, "0 < strip_length <= 100 m")
         except BilayerError as error:

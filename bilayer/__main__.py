@@ -1,0 +1,6 @@
+"""``python -m bilayer``: the command line without the installed script."""
+import sys
+
+from .cli import main
+
+sys.exit(main())

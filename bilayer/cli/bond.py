@@ -1,0 +1,76 @@
+"""``bilayer bond FILE [--units si|us] [--json]``: end shear and peel of an adhesive joint."""
+from __future__ import annotations
+
+import argparse
+import math
+
+from .job_output import add_file_arguments, run_assessment
+
+NAME = "bond"
+HELP = "check the adhesive joint of a design file: end shear and peel, Tg, allowables, sweeps"
+DESCRIPTION = (
+    "Run the [adhesive_bond] section of a three-layer design (lower adherend, adhesive, upper adherend): "
+    "end shear and peel from the interface model at every operating temperature, margins against the "
+    "allowables, glass-transition warnings and the requested sweeps. Screening estimates only."
+)
+
+
+def add_arguments(parser: argparse.ArgumentParser) -> None:
+    add_file_arguments(parser, "adhesive_bond")
+
+
+def run(args: argparse.Namespace) -> int:
+    from ..adhesive.bond import assess_adhesive_design
+
+    return run_assessment(args, assess_adhesive_design, report)
+
+
+def _stress(value: float, system: str) -> str:
+    from ..core.units import format as show
+
+    return show(value, "stress", system) if math.isfinite(value) else "-"
+
+
+def report(design, assessment, system: str = "si", source: str = "") -> str:
+    """Plain-text report of a :class:`bilayer.adhesive.AdhesiveAssessment`."""
+    from ..adhesive.bond import ADHESIVE_CAUTIONS
+    from ..core.cautions import cautions_text
+    from ..core.units import format as show
+
+    r = assessment.result
+    j = r.joint
+    title = design.name or "(unnamed design)"
+    lines = [f"{title}  [{source}]" if source else title, ""]
+    lines.append(f"Adhesive joint ({j.model.replace('_', ' ')} model, {j.state} state)")
+    lines.append(f"  adherends            {j.lower.name} {show(j.lower_thickness, 'length', system)} / "
+                 f"{j.upper.name} {show(j.upper_thickness, 'length', system)}")
+    lines.append(f"  adhesive             {j.adhesive.name}, bond line {show(j.bond_line, 'length', system)}, "
+                 f"E {show(j.adhesive.youngs_modulus, 'modulus', system)}, G {show(j.adhesive.shear_modulus, 'modulus', system)}")
+    lines.append(f"  overlap              {show(j.overlap, 'length', system)}; stress-free "
+                 f"{show(j.stress_free_temperature, 'temperature', system)}")
+    lines.append(f"  shear decay length   {show(r.decay_length, 'length', system)}"
+                 + (f"; peel decay length {show(r.peel_decay_length, 'length', system)}"
+                    if math.isfinite(r.peel_decay_length) else ""))
+    lines.append("  sign: shear on the lower adherend's top face at the right end, +x positive; peel > 0 tension")
+    lines.append(f"  {'operating':>12}  {'Delta T':>10}  {'end shear':>12}  {'peel max':>12}  {'peel min':>12}")
+    for i, t in enumerate(r.operating_temperatures):
+        lines.append(f"  {show(t, 'temperature', system):>12}  {show(r.temperature_change[i], 'temperature_difference', system):>10}"
+                     f"  {_stress(r.end_shear[i], system):>12}  {_stress(r.max_peel[i], system):>12}"
+                     f"  {_stress(r.min_peel[i], system):>12}")
+    if r.shear_margin is not None:
+        lines.append(f"  shear margin         {r.shear_margin:.3g} (allowable {_stress(r.allowable_shear, system)})")
+    if r.peel_margin is not None:
+        lines.append(f"  peel margin          {r.peel_margin:.3g} (allowable {_stress(r.allowable_peel, system)})")
+    units = {"bond_line": "length", "overlap": "length", "adhesive_modulus": "modulus"}
+    for sweep in assessment.sweeps:
+        lines.append("")
+        lines.append(f"Sweep of {sweep.parameter.replace('_', ' ')} at {show(sweep.operating_temperature, 'temperature', system)}")
+        lines.append(f"  {'value':>12}  {'end shear':>12}  {'peel max':>12}  {'decay length':>12}")
+        for value, shear, peel, decay in zip(sweep.values, sweep.end_shear, sweep.max_peel, sweep.decay_length):
+            lines.append(f"  {show(value, units[sweep.parameter], system):>12}  {_stress(shear, system):>12}  "
+                         f"{_stress(peel, system):>12}  {show(decay, 'length', system):>12}")
+    if r.warnings:
+        lines += ["", "Warnings:"] + [f"  - {text}" for text in r.warnings]
+    lines += ["", "Assumptions:"] + [f"  - {text}" for text in r.assumptions]
+    lines += ["", cautions_text(ADHESIVE_CAUTIONS)]
+    return "\n".join(lines)

@@ -1,0 +1,6 @@
+"""The solder job: the ``[solder_joint]`` table, checked by :func:`bilayer.solder.joint.assess_solder_design`."""
+from ..core.job import Job
+from .joint import SOLDER_CAUTIONS
+from .section import SECTION
+
+JOB = Job(SECTION, "solder joint: DNP strain, Engelmaier life, acceleration, warpage", SOLDER_CAUTIONS)
