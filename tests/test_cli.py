@@ -12,7 +12,7 @@ import pytest
 from bilayer.core.cautions import CAUTIONS
 from bilayer.cli.main import EXIT_CHECK_FAILED, EXIT_INTERNAL_ERROR, EXIT_INVALID_INPUT, EXIT_OK, commands, main
 from bilayer.designs.design_file import load_design
-from bilayer.core.units import format as show
+from bilayer.core.units import format_quantity
 
 EXAMPLES = {p.name[:-5]: Path(str(p)) for p in (resources.files("bilayer") / "examples").iterdir()
             if p.name.endswith(".toml")}
@@ -54,12 +54,12 @@ def test_evaluate_table_shows_core_numbers(capsys):
     result = design.evaluate()
     code, out, err = run(capsys, "evaluate", str(path))
     assert code == 0, err
-    assert show(result.curvature, "curvature") in out
-    assert show(result.bending_axis, "length") in out
-    assert show(result.effective_cte, "cte") in out
+    assert format_quantity(result.curvature, "curvature") in out
+    assert format_quantity(result.bending_axis, "length") in out
+    assert format_quantity(result.effective_cte, "cte") in out
     for i, layer in enumerate(design.stack):
         assert layer.material.name in out
-        assert show(float(result.stress_top[i]), "stress", unit="MPa") in out
+        assert format_quantity(float(result.stress_top[i]), "stress", unit="MPa") in out
     assert "plate" in out and "217 degC" in out and "25 degC" in out
     assert "Cautions:" in out and "IEC 60730-2-9" in out
     for warning in result.warnings:

@@ -1,4 +1,4 @@
-"""The [interface] design-file section and the ``bilayer interface`` command: what they show equals
+"""The [interface] design-file section and the ``bilayer interface`` command: what they format_quantity equals
 direct core calls (bilayer.strip.interface, bilayer.strip.fe_comparison), errors name the key, exit codes follow docs/cli.md."""
 import json
 from pathlib import Path
@@ -12,7 +12,7 @@ from bilayer.core.errors import DesignFileError, InputError
 from bilayer.strip.interface import interface_stresses
 from bilayer.strip.assessment import check_temperature, interface_for_design, trust_report_for_design
 from bilayer.core.stack import Temperatures
-from bilayer.core.units import format as show
+from bilayer.core.units import format_quantity
 
 EXAMPLE = Path(__file__).parents[1] / "bilayer" / "examples" / "sensor_die_on_alumina.toml"
 
@@ -101,8 +101,8 @@ def test_command_text_shows_core_numbers(capsys, tmp_path):
     out = capsys.readouterr().out
     assert code == EXIT_OK
     for result in interface_for_design(design):
-        assert show(result.interfaces[0].max_shear, "stress") in out
-        assert show(result.interfaces[0].decay_length, "length") in out
+        assert format_quantity(result.interfaces[0].max_shear, "stress") in out
+        assert format_quantity(result.interfaces[0].decay_length, "length") in out
     assert "Cautions:" in out and "nominal" in out
 
 

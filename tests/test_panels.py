@@ -18,7 +18,7 @@ import bilayer as bl  # noqa: E402
 from bilayer import plots
 from bilayer.panels import StackExplorer, example_design
 from bilayer.panels.stack_editor import CUSTOM
-from bilayer.core.units import format as format_quantity
+from bilayer.core.units import format_quantity
 
 
 @pytest.fixture

@@ -2,7 +2,7 @@
 
 External references: the report is parsed with the standard library's html.parser; embedded images
 are decoded and opened with Pillow (PNG) and xml.etree (SVG); quantities are compared with
-bilayer.core.units.format of the record's own SI values.
+bilayer.core.units.format_quantity of the record's own SI values.
 """
 from __future__ import annotations
 
@@ -25,7 +25,7 @@ from bilayer.core.materials import default_library
 from bilayer.records.record import read_record
 from bilayer.report.html_report import equations, report_html
 from bilayer.thermostat.element import THERMOSTAT_CAUTIONS
-from bilayer.core.units import format as format_quantity
+from bilayer.core.units import format_quantity
 
 EXAMPLE = Path(__file__).resolve().parent.parent / "bilayer" / "examples" / "hive_entrance_strip.record.toml"
 FORMAT1 = Path(__file__).parent / "data" / "record_format1.toml"

@@ -17,7 +17,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from bilayer.core.errors import InputError, UnitError
-from bilayer.core.units import KINDS, UNIT_SYSTEMS, display_unit, format, from_si, kind_info, parse, to_display
+from bilayer.core.units import KINDS, UNIT_SYSTEMS, display_unit, format_quantity, from_si, kind_info, parse, to_display
 
 PSI = Fraction("0.45359237") * Fraction("9.80665") / Fraction("0.0254") ** 2  # Pa, exact (1959 + CGPM)
 
@@ -200,7 +200,7 @@ def test_unknown_kind():
     (8000.0, "density", "si", "8000 kg/m^3"),
 ])
 def test_format(value, kind, system, text):
-    assert format(value, kind, system) == text
+    assert format_quantity(value, kind, system) == text
 
 
 def test_display_unit_choice_by_size():
@@ -220,8 +220,8 @@ finite = st.floats(min_value=-1e12, max_value=1e12, allow_nan=False, allow_infin
 @given(value=finite, kind=st.sampled_from(sorted(k for k in KINDS if k != "temperature")),
        system=st.sampled_from(UNIT_SYSTEMS))
 def test_format_parses_back(value, kind, system):
-    """What format() prints reads back through parse() (to the printed precision)."""
-    text = format(value, kind, system, digits=17)
+    """What format_quantity() prints reads back through parse() (to the printed precision)."""
+    text = format_quantity(value, kind, system, digits=17)
     assert parse(text, kind) == pytest.approx(value, rel=1e-15, abs=1e-300)
 
 

@@ -166,7 +166,7 @@ class AdhesiveResult:
         return self.allowable_peel / self.worst_peel
 
     def to_dict(self) -> dict:
-        from ..core.results import _plain
+        from ..core.jsonable import plain
 
         j = self.joint
         return {
@@ -183,16 +183,16 @@ class AdhesiveResult:
             "stress_free_temperature": j.stress_free_temperature,
             "bending_state": j.state,
             "model": j.model,
-            "operating_temperatures": _plain(self.operating_temperatures),
-            "temperature_change": _plain(self.temperature_change),
-            "end_shear": _plain(self.end_shear),
-            "max_peel": _plain(self.max_peel),
-            "min_peel": _plain(self.min_peel),
-            "mid_force": _plain(self.mid_force),
+            "operating_temperatures": plain(self.operating_temperatures),
+            "temperature_change": plain(self.temperature_change),
+            "end_shear": plain(self.end_shear),
+            "max_peel": plain(self.max_peel),
+            "min_peel": plain(self.min_peel),
+            "mid_force": plain(self.mid_force),
             "decay_length": self.decay_length,
-            "peel_decay_length": _plain(self.peel_decay_length),
+            "peel_decay_length": plain(self.peel_decay_length),
             "worst_shear": self.worst_shear,
-            "worst_peel": _plain(self.worst_peel),
+            "worst_peel": plain(self.worst_peel),
             "allowable_shear": self.allowable_shear,
             "allowable_peel": self.allowable_peel,
             "shear_margin": self.shear_margin,
@@ -339,16 +339,16 @@ class AdhesiveSweep:
     cautions: tuple[str, ...] = field(default=CAUTIONS + ADHESIVE_CAUTIONS)
 
     def to_dict(self) -> dict:
-        from ..core.results import _plain
+        from ..core.jsonable import plain
 
         unit = {"bond_line": "m", "overlap": "m", "adhesive_modulus": "Pa"}[self.parameter]
         return {
             "parameter": self.parameter,
-            "values": _plain(self.values),
+            "values": plain(self.values),
             "operating_temperature": self.operating_temperature,
-            "end_shear": _plain(self.end_shear),
-            "max_peel": _plain(self.max_peel),
-            "decay_length": _plain(self.decay_length),
+            "end_shear": plain(self.end_shear),
+            "max_peel": plain(self.max_peel),
+            "decay_length": plain(self.decay_length),
             "assumptions": list(self.assumptions),
             "cautions": list(self.cautions),
             "units": {"values": unit, "operating_temperature": "K", "end_shear": "Pa", "max_peel": "Pa",

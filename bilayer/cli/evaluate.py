@@ -55,16 +55,16 @@ def report(design, result, system: str = "si", source: str = "") -> str:
     """The plain-text table printed by ``bilayer evaluate`` (also usable by other faces)."""
     from ..core.cautions import cautions_text
     from ..core.units import display_unit
-    from ..core.units import format as show
+    from ..core.units import format_quantity
 
     lines = []
     title = design.name or "(unnamed design)"
     lines.append(f"{title}  [{source}]" if source else title)
     lines.append(f"bending state    {result.state.value}: {result.state.description}")
-    lines.append(f"stress-free      {show(result.stress_free_temperature, 'temperature', system)}")
+    lines.append(f"stress-free      {format_quantity(result.stress_free_temperature, 'temperature', system)}")
     if design.axial_force or design.bending_moment:
-        lines.append(f"applied loads    axial force {show(design.axial_force, 'force_per_width', system)}, "
-                     f"bending moment {show(design.bending_moment, 'moment_per_width', system)} (per unit width)")
+        lines.append(f"applied loads    axial force {format_quantity(design.axial_force, 'force_per_width', system)}, "
+                     f"bending moment {format_quantity(design.bending_moment, 'moment_per_width', system)} (per unit width)")
     operating = np.asarray(result.operating_temperature, float)
     indices = [None] if operating.ndim == 0 else list(range(operating.size))
     transverse = result.state.value != "narrow"
@@ -78,8 +78,8 @@ def report(design, result, system: str = "si", source: str = "") -> str:
     for index in indices:
         lines.append("")
         change = _at(result.temperature_change, index)
-        lines.append(f"operating        {show(_at(result.operating_temperature, index), 'temperature', system)}"
-                     f"   (Delta T = {show(change, 'temperature_difference', system)})")
+        lines.append(f"operating        {format_quantity(_at(result.operating_temperature, index), 'temperature', system)}"
+                     f"   (Delta T = {format_quantity(change, 'temperature_difference', system)})")
         header = f"  {'#':>2}  {'layer (top first)':<{name_width}}  {'thickness':>12}  {'stress bottom':>15}  {'stress top':>15}"
         if transverse:
             header += f"  {'transverse bottom':>17}  {'transverse top':>15}"
@@ -87,20 +87,20 @@ def report(design, result, system: str = "si", source: str = "") -> str:
         for number in range(result.n_layers, 0, -1):
             i = number - 1
             row = (f"  {number:>2}  {names[i]:<{name_width}}  "
-                   f"{show(design.stack[i].thickness, 'length', system):>12}  "
-                   f"{show(_row(result.stress_bottom, index, i), 'stress', system, unit=stress_unit):>15}  "
-                   f"{show(_row(result.stress_top, index, i), 'stress', system, unit=stress_unit):>15}")
+                   f"{format_quantity(design.stack[i].thickness, 'length', system):>12}  "
+                   f"{format_quantity(_row(result.stress_bottom, index, i), 'stress', system, unit=stress_unit):>15}  "
+                   f"{format_quantity(_row(result.stress_top, index, i), 'stress', system, unit=stress_unit):>15}")
             if transverse:
-                row += (f"  {show(_row(result.transverse_stress_bottom, index, i), 'stress', system, unit=stress_unit):>17}"
-                        f"  {show(_row(result.transverse_stress_top, index, i), 'stress', system, unit=stress_unit):>15}")
+                row += (f"  {format_quantity(_row(result.transverse_stress_bottom, index, i), 'stress', system, unit=stress_unit):>17}"
+                        f"  {format_quantity(_row(result.transverse_stress_top, index, i), 'stress', system, unit=stress_unit):>15}")
             lines.append(row)
         curvature = _at(result.curvature, index)
         radius = _at(result.radius, index)
-        lines.append(f"  curvature      {show(curvature, 'curvature', system)}   ({_bending_sense(curvature)})")
-        lines.append("  radius         " + (show(radius, 'length', system) if math.isfinite(radius) else "infinite (flat)"))
-        lines.append(f"  bending axis   {show(result.bending_axis, 'length', system)} above the bottom face")
+        lines.append(f"  curvature      {format_quantity(curvature, 'curvature', system)}   ({_bending_sense(curvature)})")
+        lines.append("  radius         " + (format_quantity(radius, 'length', system) if math.isfinite(radius) else "infinite (flat)"))
+        lines.append(f"  bending axis   {format_quantity(result.bending_axis, 'length', system)} above the bottom face")
         cte = _at(result.effective_cte, index)
-        lines.append("  effective CTE  " + (show(cte, 'cte', system) if math.isfinite(cte) else "undefined (Delta T = 0)"))
+        lines.append("  effective CTE  " + (format_quantity(cte, 'cte', system) if math.isfinite(cte) else "undefined (Delta T = 0)"))
     if result.warnings:
         lines.append("")
         lines.append("Warnings:")

@@ -96,9 +96,9 @@ def run(args: argparse.Namespace) -> int:
 
 
 def _value(value: float, kind: str, system: str) -> str:
-    from ..core.units import format as show
+    from ..core.units import format_quantity
 
-    return show(value, kind, system) if math.isfinite(value) else "-"
+    return format_quantity(value, kind, system) if math.isfinite(value) else "-"
 
 
 def text(design, results, report=None, system: str = "si", source: str = "") -> str:

@@ -34,7 +34,7 @@ def _row(material) -> dict:
 def run(args: argparse.Namespace) -> int:
     from ..core.errors import InputError
     from ..core.materials import default_library
-    from ..core.units import format as show
+    from ..core.units import format_quantity
 
     library = default_library()
     found = library.search(args.search) if args.search else tuple(library.values())
@@ -49,12 +49,12 @@ def run(args: argparse.Namespace) -> int:
     cited: dict[str, str] = {}
     for material in found:
         out.append(f"{material.key}  {material.name}" + (f"  [{material.category}]" if material.category else ""))
-        values = [f"E {show(material.youngs_modulus, 'modulus', system)}", f"nu {material.poisson_ratio:g}",
-                  f"CTE {show(material.alpha, 'cte', system)} ({material.cte.describe()})"]
+        values = [f"E {format_quantity(material.youngs_modulus, 'modulus', system)}", f"nu {material.poisson_ratio:g}",
+                  f"CTE {format_quantity(material.alpha, 'cte', system)} ({material.cte.describe()})"]
         if material.density is not None:
-            values.append(f"density {show(material.density, 'density', system)}")
+            values.append(f"density {format_quantity(material.density, 'density', system)}")
         if material.strength is not None:
-            values.append(f"strength {show(material.strength, 'stress', system)}"
+            values.append(f"strength {format_quantity(material.strength, 'stress', system)}"
                           + (f" ({material.strength_kind})" if material.strength_kind else ""))
         out.append("    " + "; ".join(values))
         for field_name, source in material.sources.items():

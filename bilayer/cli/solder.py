@@ -27,17 +27,17 @@ def run(args: argparse.Namespace) -> int:
 
 
 def _cycle_text(cycle, system: str) -> str:
-    from ..core.units import format as show
+    from ..core.units import format_quantity
 
-    return (f"{show(cycle.low, 'temperature', system)} to {show(cycle.high, 'temperature', system)}, dwell "
-            f"{show(cycle.dwell, 'time', system)}, {cycle.cycles_per_day:g} cycles/day")
+    return (f"{format_quantity(cycle.low, 'temperature', system)} to {format_quantity(cycle.high, 'temperature', system)}, dwell "
+            f"{format_quantity(cycle.dwell, 'time', system)}, {cycle.cycles_per_day:g} cycles/day")
 
 
 def report(design, assessment, system: str = "si", source: str = "") -> str:
     """Plain-text report of a :class:`bilayer.solder.SolderAssessment`."""
     from ..core.cautions import cautions_text
     from ..solder.joint import NORRIS_LANDZBERG_CONVENTION, SOLDER_CAUTIONS
-    from ..core.units import format as show
+    from ..core.units import format_quantity
 
     j = assessment.joint
     title = design.name or "(unnamed design)"
@@ -45,7 +45,7 @@ def report(design, assessment, system: str = "si", source: str = "") -> str:
     lines.append(f"  field cycle          {_cycle_text(j.cycle, system)}")
     if j.board_cycle is not j.cycle:
         lines.append(f"  board cycle          {_cycle_text(j.board_cycle, system)}")
-    lines.append(f"  DNP, stand-off       {show(j.dnp, 'length', system)}, {show(j.standoff, 'length', system)};"
+    lines.append(f"  DNP, stand-off       {format_quantity(j.dnp, 'length', system)}, {format_quantity(j.standoff, 'length', system)};"
                  f" non-ideality factor F = {j.factor:g}")
     lines.append(f"  mismatch strain      {j.mismatch_strain:.4g} (board minus component, integrated CTEs)")
     lines.append(f"  global shear strain  {j.shear_strain:.4g} ({100 * j.shear_strain:.3g} %)")
@@ -71,15 +71,15 @@ def report(design, assessment, system: str = "si", source: str = "") -> str:
     if w is not None:
         lines.append("")
         lines.append(f"Assembly warpage ({w.stack_result.state.value} state; stress-free "
-                     f"{show(w.stress_free_temperature, 'temperature', system)}, {w.stress_free_basis})")
+                     f"{format_quantity(w.stress_free_temperature, 'temperature', system)}, {w.stress_free_basis})")
         lines.append("  sign: curvature and bow > 0 when the top layer's face is convex (centre high, top up)")
         operating = np.atleast_1d(np.asarray(w.stack_result.operating_temperature, float))
         kappa = np.atleast_1d(w.curvature)
         bows = [np.atleast_1d(b) for b in (w.bow_length, w.bow_width, w.bow_diagonal)]
         lines.append(f"  {'operating':>12}  {'curvature':>14}  {'bow length':>12}  {'bow width':>12}  {'bow diagonal':>12}")
         for i, t in enumerate(operating):
-            lines.append(f"  {show(t, 'temperature', system):>12}  {show(kappa[i], 'curvature', system):>14}  "
-                         + "  ".join(f"{show(b[i], 'length', system):>12}" for b in bows))
+            lines.append(f"  {format_quantity(t, 'temperature', system):>12}  {format_quantity(kappa[i], 'curvature', system):>14}  "
+                         + "  ".join(f"{format_quantity(b[i], 'length', system):>12}" for b in bows))
     warnings = assessment.warnings
     if warnings:
         lines += ["", "Warnings:"] + [f"  - {text}" for text in warnings]

@@ -38,6 +38,7 @@ def run(args: argparse.Namespace) -> int:
     from ..core.cautions import CAUTIONS, cautions_text
     from ..designs.design_file import read_design
     from ..core.errors import InputError
+    from ..core.jsonable import plain
     from ..thermostat.assessment import analyse
 
     design = read_design(args.file).design
@@ -71,17 +72,13 @@ def run(args: argparse.Namespace) -> int:
                         f"utilisation {row.utilisation:.3g} ({status})")
     if args.json:
         data = {**report.to_dict(), **extra, "cautions": list(CAUTIONS) + list(report.cautions)}
-        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False, default=_plain) + "\n")
+        sys.stdout.write(json.dumps(plain(data), indent=2, allow_nan=False) + "\n")
     else:
         body = report.to_text(args.units, cautions=False)
         if text:
             body += "\n" + "\n".join(text)
         sys.stdout.write(body + "\n\n" + cautions_text(report.cautions) + "\n")
     return 0
-
-
-def _plain(value):
-    return None if value != value else float(value)  # NaN -> null; numpy scalars -> float
 
 
 def _optimum(report, design) -> dict:

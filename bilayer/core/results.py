@@ -6,16 +6,16 @@ leading axis when several operating temperatures were evaluated at once.
 """
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass
 from typing import TYPE_CHECKING
 
 import numpy as np
 
 from . import laminate
+from .jsonable import plain
 
 if TYPE_CHECKING:  # pragma: no cover
-    from .stack import BendingState, Stack, Temperatures
+    from .stack import BendingState
 
 __all__ = ["StackResult", "build_result", "layer_inputs", "RESULT_UNITS", "ASSUMPTIONS"]
 
@@ -192,59 +192,50 @@ class StackResult:
                 {
                     "label": self.labels[i],
                     "material": self.materials[i],
-                    "thickness": _plain(self.thicknesses[i]),
-                    "bottom": _plain(self.layer_bottom[i]),
-                    "top": _plain(self.layer_top[i]),
-                    "stress_bottom": _plain(self.stress_bottom[..., i]),
-                    "stress_top": _plain(self.stress_top[..., i]),
-                    "transverse_stress_bottom": _plain(self.transverse_stress_bottom[..., i]),
-                    "transverse_stress_top": _plain(self.transverse_stress_top[..., i]),
-                    "force": _plain(self.layer_force[..., i]),
+                    "thickness": plain(self.thicknesses[i]),
+                    "bottom": plain(self.layer_bottom[i]),
+                    "top": plain(self.layer_top[i]),
+                    "stress_bottom": plain(self.stress_bottom[..., i]),
+                    "stress_top": plain(self.stress_top[..., i]),
+                    "transverse_stress_bottom": plain(self.transverse_stress_bottom[..., i]),
+                    "transverse_stress_top": plain(self.transverse_stress_top[..., i]),
+                    "force": plain(self.layer_force[..., i]),
                 }
             )
         interfaces = [
             {
-                "height": _plain(self.layer_top[i]),
-                "stress_below": _plain(self.stress_top[..., i]),
-                "stress_above": _plain(self.stress_bottom[..., i + 1]),
+                "height": plain(self.layer_top[i]),
+                "stress_below": plain(self.stress_top[..., i]),
+                "stress_above": plain(self.stress_bottom[..., i + 1]),
             }
             for i in range(self.n_layers - 1)
         ]
         return {
             "bending_state": self.state.value,
             "restraint": self.restraint,
-            "stress_free_temperature": _plain(self.stress_free_temperature),
-            "operating_temperature": _plain(self.operating_temperature),
-            "temperature_change": _plain(self.temperature_change),
-            "axial_force": _plain(self.axial_force),
-            "bending_moment": _plain(self.bending_moment),
-            "curvature": _plain(self.curvature),
-            "radius": _plain(self.radius),
-            "bending_axis": _plain(self.bending_axis),
-            "neutral_axis": _plain(self.neutral_axis),
-            "axial_strain": _plain(self.axial_strain),
-            "midplane_strain": _plain(self.midplane_strain),
-            "axial_rigidity": _plain(self.axial_rigidity),
-            "flexural_rigidity": _plain(self.flexural_rigidity),
-            "thermal_force": _plain(self.thermal_force),
-            "thermal_moment": _plain(self.thermal_moment),
-            "effective_cte": _plain(self.effective_cte),
-            "strain_energy": _plain(self.strain_energy),
+            "stress_free_temperature": plain(self.stress_free_temperature),
+            "operating_temperature": plain(self.operating_temperature),
+            "temperature_change": plain(self.temperature_change),
+            "axial_force": plain(self.axial_force),
+            "bending_moment": plain(self.bending_moment),
+            "curvature": plain(self.curvature),
+            "radius": plain(self.radius),
+            "bending_axis": plain(self.bending_axis),
+            "neutral_axis": plain(self.neutral_axis),
+            "axial_strain": plain(self.axial_strain),
+            "midplane_strain": plain(self.midplane_strain),
+            "axial_rigidity": plain(self.axial_rigidity),
+            "flexural_rigidity": plain(self.flexural_rigidity),
+            "thermal_force": plain(self.thermal_force),
+            "thermal_moment": plain(self.thermal_moment),
+            "effective_cte": plain(self.effective_cte),
+            "strain_energy": plain(self.strain_energy),
             "layers": layers,
             "interfaces": interfaces,
             "warnings": list(self.warnings),
             "assumptions": list(self.assumptions),
             "units": dict(RESULT_UNITS),
         }
-
-
-def _plain(value):
-    """numpy scalar/array -> float/list for JSON, with inf/NaN as None."""
-    array = np.asarray(value, float)
-    if array.ndim == 0:
-        x = float(array)
-        return x if math.isfinite(x) else None
-    return [_plain(v) for v in array]
 
 
 def layer_inputs(stack, temperatures):
@@ -334,7 +325,7 @@ def _strain_energy(state, Y, t, sol, E, thermal_strain):
 
 def _warnings(stack, T0, T, thermal_strain, sb, st, kappa) -> tuple[str, ...]:
     """Model-limit and data-range warnings that apply to this result."""
-    from .units import format as fmt
+    from .units import format_quantity
 
     messages = []
     Tmin, Tmax = float(np.min(T)), float(np.max(T))
@@ -345,7 +336,7 @@ def _warnings(stack, T0, T, thermal_strain, sb, st, kappa) -> tuple[str, ...]:
         cte = m.cte
         if not cte.covers(lo, hi):
             messages.append(
-                f"{name}: the range {fmt(lo, 'temperature')} to {fmt(hi, 'temperature')} leaves its CTE "
+                f"{name}: the range {format_quantity(lo, 'temperature')} to {format_quantity(hi, 'temperature')} leaves its CTE "
                 f"data ({_range_text(cte.valid_range)}); the thermal strain is extrapolated"
             )
         if m.temperature_range is not None and (lo < m.temperature_range[0] or hi > m.temperature_range[1]):
@@ -354,14 +345,14 @@ def _warnings(stack, T0, T, thermal_strain, sb, st, kappa) -> tuple[str, ...]:
             )
         if m.glass_transition is not None and lo < m.glass_transition < hi:
             messages.append(
-                f"{name}: the range crosses the glass transition ({fmt(m.glass_transition, 'temperature')}); "
+                f"{name}: the range crosses the glass transition ({format_quantity(m.glass_transition, 'temperature')}); "
                 "modulus and CTE change there, so the elastic constants used are not valid over the whole range"
             )
         peak = float(np.max(np.abs(np.concatenate([np.ravel(sb[..., i]), np.ravel(st[..., i])]))))
         if m.strength is not None and peak > m.strength:
             messages.append(
-                f"{name}: peak |stress| {fmt(peak, 'stress')} exceeds its {m.strength_kind or 'strength'} "
-                f"{fmt(m.strength, 'stress')}; the elastic result is an upper bound"
+                f"{name}: peak |stress| {format_quantity(peak, 'stress')} exceeds its {m.strength_kind or 'strength'} "
+                f"{format_quantity(m.strength, 'stress')}; the elastic result is an upper bound"
             )
     mismatch = np.max(np.ptp(np.reshape(thermal_strain, (-1, stack.n_layers)), axis=-1))
     if mismatch > MISMATCH_STRAIN_WARNING:
@@ -375,8 +366,8 @@ def _warnings(stack, T0, T, thermal_strain, sb, st, kappa) -> tuple[str, ...]:
 
 
 def _range_text(bounds) -> str:
-    from .units import format as fmt
+    from .units import format_quantity
 
     if bounds is None:
         return "no stated range"
-    return f"{fmt(bounds[0], 'temperature')} to {fmt(bounds[1], 'temperature')}"
+    return f"{format_quantity(bounds[0], 'temperature')} to {format_quantity(bounds[1], 'temperature')}"

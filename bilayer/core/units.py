@@ -49,7 +49,7 @@ __all__ = [
     "to_display",
     "display_unit",
     "from_si",
-    "format",
+    "format_quantity",
     "registry",
 ]
 
@@ -440,7 +440,7 @@ def to_display(value_si: float, kind: str, system: str = "si", unit: str | None 
     return from_si(value_si, kind, label), label
 
 
-def format(value_si: float, kind: str, system: str = "si", digits: int = 4, unit: str | None = None) -> str:
+def format_quantity(value_si: float, kind: str, system: str = "si", digits: int = 4, unit: str | None = None) -> str:
     """Format ``value_si`` as ``"<number> <unit>"`` with ``digits`` significant digits."""
     number, label = to_display(value_si, kind, system, unit)
     text = f"{number:.{digits}g}"

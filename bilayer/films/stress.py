@@ -476,20 +476,20 @@ class FilmThermalResult:
         return _out(np.asarray(self.stoney_stress) / np.asarray(self.mean_film_stress) - 1.0)
 
     def to_dict(self) -> dict:
-        from ..core.results import _plain
+        from ..core.jsonable import plain
 
         return {
             "substrate_biaxial_modulus": self.substrate_biaxial_modulus,
             "film_biaxial_modulus": self.film_biaxial_modulus,
-            "misfit_strain": _plain(self.misfit_strain),
-            "curvature": _plain(self.curvature),
-            "stoney_curvature": _plain(self.stoney_curvature),
-            "curvature_error": _plain(self.curvature_error),
-            "mean_film_stress": _plain(self.mean_film_stress),
-            "stoney_stress": _plain(self.stoney_stress),
-            "stress_error": _plain(self.stress_error),
+            "misfit_strain": plain(self.misfit_strain),
+            "curvature": plain(self.curvature),
+            "stoney_curvature": plain(self.stoney_curvature),
+            "curvature_error": plain(self.curvature_error),
+            "mean_film_stress": plain(self.mean_film_stress),
+            "stoney_stress": plain(self.stoney_stress),
+            "stress_error": plain(self.stress_error),
             "span": self.span,
-            "bow": None if self.bow is None else _plain(self.bow),
+            "bow": None if self.bow is None else plain(self.bow),
             "sign_convention": "kappa > 0 film side convex; bow > 0 centre high with the film up; stress > 0 tension",
             "stack": self.stack_result.to_dict(),
             "warnings": list(self.warnings),

@@ -137,7 +137,7 @@ class QuantityField:
 
     def show(self, value_si, system: str) -> None:
         """Write ``value_si`` (a number, or a sequence when lists are allowed) in ``system`` units."""
-        from ..core.units import format as format_quantity
+        from ..core.units import format_quantity
 
         if np.ndim(value_si):
             values = np.array(value_si, float)

@@ -101,7 +101,7 @@ class FECheckPanel(widgets.VBox):
             self.status.value = message_html("The design changed since this check: run it again.", "note")
 
     def _show(self) -> None:
-        from ..core.units import format as fmt
+        from ..core.units import format_quantity
 
         report, system = self.report, self.model.system
         plots.closed_form_against_fe(report, system, figure=self.image.figure)
@@ -113,7 +113,7 @@ class FECheckPanel(widgets.VBox):
         for row in report.rows:
             within = "" if row.tolerance is None else ("✓" if abs(row.difference) <= row.tolerance else "✗")
             rows.append(f"<tr><td>{escape(row.quantity)}</td><td>{escape(row.where)}</td>"
-                        f"<td>{fmt(row.closed_form, row.kind, system)}</td><td>{fmt(row.fe, row.kind, system)}</td>"
+                        f"<td>{format_quantity(row.closed_form, row.kind, system)}</td><td>{format_quantity(row.fe, row.kind, system)}</td>"
                         f"<td>{100 * row.difference:+.3f} %</td><td>{within}</td></tr>")
         flags = "".join(
             f"<li style='color:{'#b00020' if flag.severity == 'warning' else '#8a5a00'}'>{escape(flag.message)}</li>"

@@ -82,7 +82,7 @@ class _Entry:
             if value is None:
                 self.widget.value = ""
             elif field.shape != "scalar" and field.kind not in ("text",):
-                from ..core.units import format as format_quantity
+                from ..core.units import format_quantity
 
                 self.widget.value = ", ".join(format_quantity(v, field.kind, system=system, digits=6) for v in value)
             elif field.shape != "scalar":

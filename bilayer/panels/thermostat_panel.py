@@ -186,14 +186,14 @@ class ThermostatPanel(JobPanel):
                 design.stack != self.model.design.stack:
             self.scatter.value = message_html("The design changed during the run; run it again.", "note")
             return
-        from ..core.units import format as fmt
+        from ..core.units import format_quantity
 
         system = self.model.system
         self.scatter_result = stats
         lo, hi = stats.percentiles[0.135], stats.percentiles[99.865]
         contributors = ", ".join(f"{name} {100 * share:.1f} %" for name, share in stats.contributors)
         self.scatter.value = (
-            f"<b>Monte Carlo, {stats.samples} samples</b>: mean {fmt(stats.mean, 'temperature', system)}, "
-            f"standard deviation {fmt(stats.std, 'temperature_difference', system)}, 0.135–99.865 % "
-            f"{fmt(lo, 'temperature', system)} to {fmt(hi, 'temperature', system)}<br>contributors: {escape(contributors)}"
+            f"<b>Monte Carlo, {stats.samples} samples</b>: mean {format_quantity(stats.mean, 'temperature', system)}, "
+            f"standard deviation {format_quantity(stats.std, 'temperature_difference', system)}, 0.135–99.865 % "
+            f"{format_quantity(lo, 'temperature', system)} to {format_quantity(hi, 'temperature', system)}<br>contributors: {escape(contributors)}"
         )

@@ -26,7 +26,7 @@ def caution_html() -> str:
 
 
 def _fmt(value: float, kind: str, system: str) -> str:
-    from ..core.units import format as format_quantity
+    from ..core.units import format_quantity
 
     return format_quantity(value, kind, system=system, digits=4)
 

@@ -97,7 +97,7 @@ class Tolerance:
 
 
 def _format(value: Any, kind: str, system: str, digits: int = 7) -> str:
-    from ..core.units import format as format_quantity
+    from ..core.units import format_quantity
 
     if value is None:
         return "undefined"

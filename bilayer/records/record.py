@@ -29,13 +29,12 @@ import warnings
 from dataclasses import dataclass, replace
 from datetime import date as _date
 from datetime import datetime, timezone
-from enum import Enum
 from pathlib import Path
 from typing import Any, Callable, Iterable, Mapping, Sequence
 
-import numpy as np
 
 from ..core.errors import DesignFileError, InputError
+from ..core.jsonable import plain
 from .section import RECORD, REVIEW, SUPPORTS, VERDICTS
 
 __all__ = [
@@ -100,23 +99,6 @@ def material_data(material: Any) -> dict:
     return table
 
 
-def _plain(value: Any) -> Any:
-    """A JSON-ready copy: tuples and arrays to lists, numpy scalars to Python numbers, enums to values."""
-    if isinstance(value, Enum):
-        return value.value
-    if isinstance(value, Mapping):
-        return {str(k): _plain(v) for k, v in value.items()}
-    if isinstance(value, (list, tuple)) or (isinstance(value, np.ndarray) and value.ndim > 0):
-        return [_plain(v) for v in list(value)]
-    if isinstance(value, (bool, np.bool_)):
-        return bool(value)
-    if isinstance(value, (int, np.integer)):
-        return int(value)
-    if isinstance(value, (float, np.floating)):
-        return float(value)
-    return value
-
-
 def canonical_inputs(design: Any, materials: Mapping[str, Any] | None = None,
                      with_material_data: bool = True) -> dict:
     """The inputs of ``design`` as plain, JSON-ready SI values (what :func:`inputs_hash` covers).
@@ -132,7 +114,7 @@ def canonical_inputs(design: Any, materials: Mapping[str, Any] | None = None,
         "conditions": {
             "bending_state": design.state.value,
             "stress_free_temperature": float(design.temperatures.stress_free),
-            "operating_temperature": _plain(operating),
+            "operating_temperature": plain(operating, finite_only=False),
             "axial_force": float(design.axial_force),
             "bending_moment": float(design.bending_moment),
         },
@@ -151,7 +133,7 @@ def canonical_inputs(design: Any, materials: Mapping[str, Any] | None = None,
     sections = {}
     for name, values in design.sections.items():
         spec = known.get(name)
-        sections[name] = _plain(spec.normalise(values) if spec is not None else dict(values))
+        sections[name] = plain(spec.normalise(values) if spec is not None else dict(values), finite_only=False)
     inputs["sections"] = sections
     return inputs
 

@@ -50,7 +50,7 @@ code,pre{font-family:"DejaVu Sans Mono",monospace;font-size:.88em} pre{backgroun
 
 
 def _fmt(value: Any, kind: str, system: str, digits: int = 4) -> str:
-    from ..core.units import format as format_quantity
+    from ..core.units import format_quantity
 
     if value is None:
         return "undefined"

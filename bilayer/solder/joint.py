@@ -582,17 +582,17 @@ class WarpageResult:
     cautions: tuple[str, ...] = field(default=CAUTIONS + SOLDER_CAUTIONS)
 
     def to_dict(self) -> dict:
-        from ..core.results import _plain
+        from ..core.jsonable import plain
 
         return {
             "stress_free_temperature": self.stress_free_temperature,
             "stress_free_basis": self.stress_free_basis,
             "length": self.length,
             "width": self.width,
-            "curvature": _plain(self.curvature),
-            "bow_length": _plain(self.bow_length),
-            "bow_width": _plain(self.bow_width),
-            "bow_diagonal": _plain(self.bow_diagonal),
+            "curvature": plain(self.curvature),
+            "bow_length": plain(self.bow_length),
+            "bow_width": plain(self.bow_width),
+            "bow_diagonal": plain(self.bow_diagonal),
             "sign_convention": "kappa > 0 and bow > 0: top face convex, centre high with the top layer up",
             "stack": self.stack_result.to_dict(),
             "warnings": list(self.warnings),

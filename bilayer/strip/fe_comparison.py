@@ -187,7 +187,7 @@ def trust_report(
 
 
 def _rows(engine, interface, fe, distances, length) -> list[TrustRow]:
-    from ..core.units import format as show
+    from ..core.units import format_quantity
 
     rows = []
     kappa = float(engine.curvature)
@@ -220,7 +220,7 @@ def _rows(engine, interface, fe, distances, length) -> list[TrustRow]:
         for quantity, closed, computed in groups:
             scale = float(np.max(np.abs(closed))) or 1.0
             for d, cf, value in zip(distances, closed, computed):
-                rows.append(TrustRow(quantity, f"{show(d, 'length')} from the end, {name}", float(cf), float(value),
+                rows.append(TrustRow(quantity, f"{format_quantity(d, 'length')} from the end, {name}", float(cf), float(value),
                                      scale, "stress", None, float(d), name))
     return rows
 

@@ -61,6 +61,7 @@ from typing import Sequence
 import numpy as np
 
 from ..core import laminate
+from ..core.jsonable import plain
 from ..core.errors import InputError, check_range
 from ..core.stack import BendingState, Stack, Temperatures
 
@@ -453,19 +454,19 @@ class InterfaceProfile:
             "mismatch_strain": p.mismatch_strain,
             "lever_arm": p.lever_arm,
             "decay_length": p.decay_length,
-            "peel_decay_length": _plain(p.peel_decay_length),
+            "peel_decay_length": plain(p.peel_decay_length),
             "long_strip_force": p.long_strip_force,
             "max_shear": self.max_shear,
-            "max_peel": _plain(self.max_peel),
-            "max_peel_distance": _plain(self.max_peel_distance),
-            "min_peel": _plain(self.min_peel),
-            "min_peel_distance": _plain(self.min_peel_distance),
-            "end_peel": _plain(self.end_peel),
-            "force": _plain(self.force),
-            "shear": _plain(self.shear),
-            "peel": None if self.peel is None else _plain(self.peel),
-            "peel_common_deflection": None if self.peel_common_deflection is None else _plain(self.peel_common_deflection),
-            "curvature": _plain(self.curvature),
+            "max_peel": plain(self.max_peel),
+            "max_peel_distance": plain(self.max_peel_distance),
+            "min_peel": plain(self.min_peel),
+            "min_peel_distance": plain(self.min_peel_distance),
+            "end_peel": plain(self.end_peel),
+            "force": plain(self.force),
+            "shear": plain(self.shear),
+            "peel": None if self.peel is None else plain(self.peel),
+            "peel_common_deflection": None if self.peel_common_deflection is None else plain(self.peel_common_deflection),
+            "curvature": plain(self.curvature),
         }
 
 
@@ -509,9 +510,9 @@ class InterfaceResult:
             "length": self.length,
             "temperature_change": self.temperature_change,
             "bonds": [i + 1 for i in self.bonds],
-            "x": _plain(self.x),
+            "x": plain(self.x),
             "interfaces": [p.to_dict() for p in self.interfaces],
-            "layer_force": [_plain(self.layer_force[:, i]) for i in range(self.layer_force.shape[1])],
+            "layer_force": [plain(self.layer_force[:, i]) for i in range(self.layer_force.shape[1])],
             "layer_labels": list(self.labels),
             "warnings": list(self.warnings),
             "assumptions": list(self.assumptions),
@@ -525,14 +526,6 @@ class InterfaceResult:
                 "min_peel": "Pa", "end_peel": "Pa", "curvature": "1/m",
             },
         }
-
-
-def _plain(value):
-    array = np.asarray(value, float)
-    if array.ndim == 0:
-        x = float(array)
-        return x if math.isfinite(x) else None
-    return [v if math.isfinite(v) else None for v in array.tolist()]
 
 
 def _positions(length: float, params: Sequence[InterfaceParameters], points: int) -> np.ndarray:

@@ -101,49 +101,49 @@ class ThermostatReport:
 
     def to_text(self, system: str = "si", cautions: bool = True) -> str:
         """A readable summary in the chosen unit system ("si" or "us"), with the cautions unless asked not to."""
-        from ..core.units import format as fmt
+        from ..core.units import format_quantity
 
         e = self.element
         rot = e.form.output == "rotation"
 
         def travel(x):
-            return fmt(x, "angle", system) if rot else fmt(x, "length", system)
+            return format_quantity(x, "angle", system) if rot else format_quantity(x, "length", system)
 
         lines = [f"Thermostat element: {self.name or e.form.kind}", f"  {e.describe()}"]
         if self.sizing is not None:
             z = self.sizing
-            lines.append(f"  sized: thickness {fmt(z.thickness, 'length', system)}, size {fmt(z.size, 'length', system)} "
-                         f"(force {fmt(z.force, 'force', system)} after the overtravel; "
+            lines.append(f"  sized: thickness {format_quantity(z.thickness, 'length', system)}, size {format_quantity(z.size, 'length', system)} "
+                         f"(force {format_quantity(z.force, 'force', system)} after the overtravel; "
                          f"{'within' if z.within_limit else 'ABOVE'} the stress limit, utilisation {z.utilisation:.3g})")
         f = self.flexivity
         over = ""
         if f.temperature_low is not None and f.temperature_high is not None:
-            over = f" over {fmt(f.temperature_low, 'temperature', system)} to {fmt(f.temperature_high, 'temperature', system)}"
+            over = f" over {format_quantity(f.temperature_low, 'temperature', system)} to {format_quantity(f.temperature_high, 'temperature', system)}"
         lines.append(f"  flexivity ({f.origin}{over}): {f.per_kelvin:.4g} 1/K = {f.per_fahrenheit:.4g} 1/degF (ASTM B106)")
         if self.required_gap is not None:
             g = self.required_gap
-            lines.append(f"  gap for a set point of {fmt(g.set_point, 'temperature', system)}: {travel(g.gap)} "
+            lines.append(f"  gap for a set point of {format_quantity(g.set_point, 'temperature', system)}: {travel(g.gap)} "
                          f"(small-deflection {travel(g.gap_small)})")
         if self.set_point is not None:
             s = self.set_point
-            lines.append(f"  closes {travel(s.gap)} on {s.direction} at {fmt(s.temperature, 'temperature', system)} "
-                         f"(small-deflection {fmt(s.temperature_small, 'temperature', system)})")
+            lines.append(f"  closes {travel(s.gap)} on {s.direction} at {format_quantity(s.temperature, 'temperature', system)} "
+                         f"(small-deflection {format_quantity(s.temperature_small, 'temperature', system)})")
         if self.load is not None:
-            at = fmt(self.load.temperatures[0], "temperature", system)
+            at = format_quantity(self.load.temperatures[0], "temperature", system)
             if rot:
                 lines.append(f"  contact torque at {at}: {self.load.force[0]:.4g} N*m; stiffness {self.load.stiffness:.4g} N*m/rad")
             else:
-                lines.append(f"  contact force at {at}: {fmt(self.load.force[0], 'force', system)}; "
+                lines.append(f"  contact force at {at}: {format_quantity(self.load.force[0], 'force', system)}; "
                              f"stiffness {self.load.stiffness:.4g} N/m")
             peak = self.load.peak_stress[0]
-            lines.append("  peak layer stress: " + ", ".join(fmt(p, "stress", system) for p in np.atleast_1d(peak))
+            lines.append("  peak layer stress: " + ", ".join(format_quantity(p, "stress", system) for p in np.atleast_1d(peak))
                          + (f" (utilisation {self.load.utilisation[0]:.3g})" if np.isfinite(self.load.utilisation[0]) else ""))
         if self.span is not None:
             sp = self.span
-            limits = [fmt(t, "temperature", system) if t is not None else "not reached in the curve range"
+            limits = [format_quantity(t, "temperature", system) if t is not None else "not reached in the curve range"
                       for t in (sp.lower_limit, sp.upper_limit)]
             lines.append(f"  usable span (stress): {limits[0]} to {limits[1]}; overtravel "
-                         + (fmt(sp.overtravel, "temperature_difference", system) if sp.overtravel is not None else "beyond the curve range"))
+                         + (format_quantity(sp.overtravel, "temperature_difference", system) if sp.overtravel is not None else "beyond the curve range"))
         if self.work is not None:
             w = self.work
             lines.append(f"  best work to the set point: {w.work:.4g} J ({w.work_per_volume:.4g} J/m^3); "
@@ -152,14 +152,14 @@ class ThermostatReport:
             if stats is not None:
                 lo, hi = stats.percentiles[0.135], stats.percentiles[99.865]
                 lines.append(f"  set-point scatter ({label}{', %d samples' % stats.samples if stats.samples else ''}): "
-                             f"mean {fmt(stats.mean, 'temperature', system)}, std {fmt(stats.std, 'temperature_difference', system)}, "
-                             f"0.135-99.865 % {fmt(lo, 'temperature', system)} to {fmt(hi, 'temperature', system)}")
+                             f"mean {format_quantity(stats.mean, 'temperature', system)}, std {format_quantity(stats.std, 'temperature_difference', system)}, "
+                             f"0.135-99.865 % {format_quantity(lo, 'temperature', system)} to {format_quantity(hi, 'temperature', system)}")
                 lines.append("    contributors: " + ", ".join(f"{k} {100 * v:.1f} %" for k, v in stats.contributors))
         if self.snap is not None:
             sn = self.snap
             if sn.snaps:
-                lines.append(f"  snap disc (INDICATIVE): trip {_t(sn.snap_temperature, fmt, system)}, reset "
-                             f"{_t(sn.reset_temperature, fmt, system)}")
+                lines.append(f"  snap disc (INDICATIVE): trip {_t(sn.snap_temperature, format_quantity, system)}, reset "
+                             f"{_t(sn.reset_temperature, format_quantity, system)}")
             else:
                 lines.append("  snap disc (INDICATIVE): no snap (dome too shallow)")
         for text in self.warnings:
@@ -170,8 +170,8 @@ class ThermostatReport:
         return "\n".join(lines)
 
 
-def _t(value, fmt, system):
-    return "outside the search range" if value is None else fmt(value, "temperature", system)
+def _t(value, format_quantity, system):
+    return "outside the search range" if value is None else format_quantity(value, "temperature", system)
 
 
 def analyse(design: Design, progress: Callable[[int, int], None] | None = None) -> ThermostatReport:

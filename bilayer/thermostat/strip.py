@@ -199,22 +199,22 @@ class ThermostatStrip:
 
     def curvature(self, temperature):
         """kappa(T) [1/m] of the free strip relative to its flat stress-free state."""
-        return _plain(self.solve(temperature).curvature)
+        return _scalar_or_array(self.solve(temperature).curvature)
 
     def curvature_change(self, temperature):
         """kappa(T) - kappa(T_ref) [1/m]: the curvature change that drives every element."""
-        return _plain(np.asarray(self.curvature(temperature)) - self.curvature(self.reference_temperature))
+        return _scalar_or_array(np.asarray(self.curvature(temperature)) - self.curvature(self.reference_temperature))
 
     def curvature_rate(self, temperature):
         """d kappa / dT [1/(m K)] at ``temperature`` from the layers' instantaneous alpha(T)."""
         T = _temperature_array("temperature", temperature)
         Y, factor, _, _ = self.elastic_constants
         alpha = np.stack([np.asarray(layer.material.cte.instantaneous(T), float) for layer in self.stack.layers], axis=-1)
-        return _plain(laminate.solve(Y, self.stack.thicknesses, alpha * factor).curvature)
+        return _scalar_or_array(laminate.solve(Y, self.stack.thicknesses, alpha * factor).curvature)
 
     def thermal_moment_change(self, temperature):
         """E I dkappa per unit width [N]: the moment that holds the element in its reference shape."""
-        return _plain(self.flexural_rigidity * np.asarray(self.curvature_change(temperature)))
+        return _scalar_or_array(self.flexural_rigidity * np.asarray(self.curvature_change(temperature)))
 
     def face_stresses(self, temperature, bending_moment=0.0):
         """(stress_bottom, stress_top) [Pa] of every layer, shape (..., n), for the strip at
@@ -370,14 +370,14 @@ class DatasheetStrip:
 
     def curvature_change(self, temperature):
         T = _temperature_array("temperature", temperature)
-        return _plain(self.flexivity.per_kelvin * (T - self.reference_temperature) / self.thickness)
+        return _scalar_or_array(self.flexivity.per_kelvin * (T - self.reference_temperature) / self.thickness)
 
     def curvature_rate(self, temperature):
         T = _temperature_array("temperature", temperature)
-        return _plain(np.full_like(T, self.flexivity.per_kelvin / self.thickness))
+        return _scalar_or_array(np.full_like(T, self.flexivity.per_kelvin / self.thickness))
 
     def thermal_moment_change(self, temperature):
-        return _plain(self.flexural_rigidity * np.asarray(self.curvature_change(temperature)))
+        return _scalar_or_array(self.flexural_rigidity * np.asarray(self.curvature_change(temperature)))
 
     def face_stresses(self, temperature, bending_moment=0.0):
         """Mechanical bending stress only: top +6 M / t^2, bottom -6 M / t^2 [Pa], shape (..., 1)."""
@@ -426,6 +426,6 @@ class DatasheetStrip:
         }
 
 
-def _plain(value):
+def _scalar_or_array(value):
     array = np.asarray(value, float)
     return float(array) if array.ndim == 0 else array

@@ -40,9 +40,9 @@ ALPHA_LIMIT = 1.0e-3
 _RANGE_TOLERANCE = 1e-6  # K; absorbs round-off of degC -> K conversions in ``covers``
 
 def _celsius(kelvin: float) -> str:
-    from ..units import format as show
+    from ..units import format_quantity
 
-    return show(kelvin, "temperature", "si", digits=6)
+    return format_quantity(kelvin, "temperature", "si", digits=6)
 
 
 def _celsius_number(kelvin: float) -> str:

@@ -91,9 +91,9 @@ def read_results(table: object, source: str, line_of: Callable[[str, str], int |
     return result
 
 
-def _plain(value: Any, in_list: bool = False) -> Any:
+def _nan_for_none(value: Any, in_list: bool = False) -> Any:
     if isinstance(value, (list, tuple)):
-        return [_plain(item, True) for item in value]
+        return [_nan_for_none(item, True) for item in value]
     if value is None:
         return math.nan if in_list else None
     return value
@@ -112,8 +112,8 @@ def write_results(results: Any) -> dict:
     for key in SECTION.keys:
         if key in ("layers", "interfaces") or data.get(key) is None:
             continue
-        table[key] = _plain(data[key])
+        table[key] = _nan_for_none(data[key])
     for key in ("layers", "interfaces"):
         if data.get(key):
-            table[key] = [{k: _plain(v) for k, v in entry.items() if v is not None} for entry in data[key]]
+            table[key] = [{k: _nan_for_none(v) for k, v in entry.items() if v is not None} for entry in data[key]]
     return table
