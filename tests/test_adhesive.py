@@ -174,7 +174,7 @@ def test_example_design_runs_and_matches_direct_calls():
 def test_command_line_prints_shear_peel_and_cautions(capsys):
     import json
 
-    from bilayer.cli.main import main
+    from bilayer.cli.entry import main
 
     assert main(["bond", str(_example_path())]) == 0
     text = capsys.readouterr().out

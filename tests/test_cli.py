@@ -10,7 +10,7 @@ from pathlib import Path
 import pytest
 
 from bilayer.core.cautions import CAUTIONS
-from bilayer.cli.main import EXIT_CHECK_FAILED, EXIT_INTERNAL_ERROR, EXIT_INVALID_INPUT, EXIT_OK, commands, main
+from bilayer.cli.entry import EXIT_CHECK_FAILED, EXIT_INTERNAL_ERROR, EXIT_INVALID_INPUT, EXIT_OK, commands, main
 from bilayer.designs.design_file import load_design
 from bilayer.core.units import format_quantity
 

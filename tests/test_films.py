@@ -258,7 +258,7 @@ def test_example_design_and_command_line(capsys):
     data were made with M_f = 360 GPa and alpha_f = 3.0 ppm/K, which the two-substrate fit recovers."""
     import json
 
-    from bilayer.cli.main import main
+    from bilayer.cli.entry import main
     from bilayer.designs.design_file import load_design
 
     assessment = films.assess_film_design(load_design(_example_path()))

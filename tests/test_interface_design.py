@@ -6,7 +6,7 @@ from pathlib import Path
 import numpy as np
 import pytest
 
-from bilayer.cli.main import EXIT_INVALID_INPUT, EXIT_OK, main
+from bilayer.cli.entry import EXIT_INVALID_INPUT, EXIT_OK, main
 from bilayer.designs.design_file import design_to_text, read_design_text
 from bilayer.core.errors import DesignFileError, InputError
 from bilayer.strip.interface import interface_stresses

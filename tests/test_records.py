@@ -20,7 +20,7 @@ import pytest
 
 import bilayer as bl
 from bilayer.core.cautions import CAUTIONS
-from bilayer.cli.main import main
+from bilayer.cli.entry import main
 from bilayer.designs.jobs import cautions_for
 from bilayer.designs.design_file import read_design
 from bilayer.core.errors import DesignFileError, InputError

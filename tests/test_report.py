@@ -20,7 +20,7 @@ pytest.importorskip("matplotlib")
 from PIL import Image  # noqa: E402
 
 from bilayer.core.cautions import CAUTIONS
-from bilayer.cli.main import main
+from bilayer.cli.entry import main
 from bilayer.core.materials import default_library
 from bilayer.records.record import read_record
 from bilayer.report.html_report import equations, report_html

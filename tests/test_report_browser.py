@@ -71,7 +71,7 @@ def test_the_interception_sees_a_network_request(chromium, tmp_path):
 
 
 def test_report_renders_offline_with_its_figures(chromium, tmp_path):
-    from bilayer.cli.main import main
+    from bilayer.cli.entry import main
 
     report = tmp_path / "hive_entrance_strip.html"
     assert main(["report", str(EXAMPLE), "-o", str(report)]) == 0

@@ -13,7 +13,7 @@ import pytest
 pytest.importorskip("ipywidgets")
 pytest.importorskip("matplotlib")
 
-from bilayer.cli.main import main
+from bilayer.cli.entry import main
 from bilayer.panels import DesignModel, StackExplorer
 from bilayer.panels.review import ReviewPanel
 from bilayer.records.check import check_record, input_differences

@@ -106,7 +106,7 @@ def test_bad_thermostat_sections_name_the_key(extra, key):
 
 
 def test_command_line_runs_the_example(capsys):
-    from bilayer.cli.main import main
+    from bilayer.cli.entry import main
 
     assert main(["thermostat", str(EXAMPLE), "--no-monte-carlo", "--units", "us"]) == 0
     out = capsys.readouterr().out
@@ -118,7 +118,7 @@ def test_command_line_runs_the_example(capsys):
 
 
 def test_command_line_refuses_a_design_without_thermostat_table(tmp_path, capsys):
-    from bilayer.cli.main import main
+    from bilayer.cli.entry import main
 
     path = tmp_path / "plain.toml"
     path.write_text(BASE)
@@ -150,7 +150,7 @@ limit_stress = "300 MPa"
 
 
 def test_command_line_design_helpers(capsys):
-    from bilayer.cli.main import main
+    from bilayer.cli.entry import main
 
     assert main(["thermostat", str(EXAMPLE), "--no-monte-carlo", "--optimum-ratio", "--rank-pairs", "flexivity",
                  "--json"]) == 0

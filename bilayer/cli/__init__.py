@@ -6,6 +6,6 @@ and ``run(args) -> int`` (an exit code of :mod:`bilayer.cli.exit_codes`) is pick
 stderr and exit code 2.
 """
 from .exit_codes import EXIT_CHECK_FAILED, EXIT_INTERNAL_ERROR, EXIT_INVALID_INPUT, EXIT_OK
-from .main import main
+from .entry import main
 
 __all__ = ["main", "EXIT_OK", "EXIT_CHECK_FAILED", "EXIT_INVALID_INPUT", "EXIT_INTERNAL_ERROR"]
