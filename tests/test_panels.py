@@ -16,6 +16,7 @@ pytest.importorskip("matplotlib")
 
 import bilayer as bl  # noqa: E402
 from bilayer import plots
+from bilayer.plots.canvas import PALETTE
 from bilayer.panels import StackExplorer, example_design
 from bilayer.panels.stack_editor import CUSTOM
 from bilayer.core.units import format_quantity
@@ -384,7 +385,7 @@ def test_each_material_keeps_its_colour_in_every_view():
 
 
 def test_material_colours_are_distinct_within_a_stack():
-    names = [f"material {i}" for i in range(len(plots.PALETTE))]
+    names = [f"material {i}" for i in range(len(PALETTE))]
     assert len(set(plots.material_colours(names).values())) == len(names)
 
 

@@ -17,7 +17,7 @@ import numpy as np
 
 from .errors import InputError
 
-__all__ = ["curvature_from_bow", "bow_from_curvature"]
+__all__ = ["curvature_from_bow", "bow_from_curvature", "arc_shape", "SUPPORTS"]
 
 
 def _positive_span(span) -> np.ndarray:
@@ -60,3 +60,23 @@ def bow_from_curvature(curvature, span):
         )
     bow = kappa * span * span / (4.0 * (1.0 + np.sqrt(1.0 - half_angle_sine**2)))
     return float(bow) if bow.ndim == 0 else bow
+
+
+SUPPORTS = ("cantilever", "centre")
+
+
+def arc_shape(curvature: float, length: float, support: str = "cantilever", points: int = 121):
+    """Centre line (x, w) of a strip of arc length ``length`` bent to uniform ``curvature``.
+
+    Exact arc kinematics (layers.md section 6): with s the arc length from the held point and the
+    tangent horizontal there, x = sin(kappa s)/kappa and w = -(1 - cos(kappa s))/kappa. The minus sign
+    follows kappa = -w'' (kappa > 0 bends the ends down). ``support``: "cantilever" (held at x = 0)
+    or "centre" (a free strip, plate or wafer held at its middle, s from -L/2 to L/2).
+    """
+    if support not in SUPPORTS:
+        raise InputError("support", support, "one of " + ", ".join(SUPPORTS))
+    s = np.linspace(0.0, length, points) if support == "cantilever" else np.linspace(-0.5, 0.5, points) * length
+    phi = curvature * s
+    if abs(curvature) * length < 1e-9:
+        return s.copy(), -0.5 * curvature * s * s
+    return np.sin(phi) / curvature, -(1.0 - np.cos(phi)) / curvature

@@ -50,6 +50,7 @@ __all__ = [
     "display_unit",
     "from_si",
     "format_quantity",
+    "shown_label",
     "registry",
 ]
 
@@ -445,3 +446,12 @@ def format_quantity(value_si: float, kind: str, system: str = "si", digits: int 
     number, label = to_display(value_si, kind, system, unit)
     text = f"{number:.{digits}g}"
     return f"{text} {label}" if label else text
+
+
+_SHOWN = {"um": "µm", "degC": "°C", "degF": "°F", "delta_degF": "°F", "deg": "°"}
+
+
+def shown_label(label: str) -> str:
+    """How the unit ``label`` reads on screen ("µm", "°C"); the label itself is what :func:`parse`
+    reads back, so entries keep it."""
+    return _SHOWN.get(label, label)

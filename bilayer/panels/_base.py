@@ -16,6 +16,7 @@ import numpy as np
 import traitlets
 
 from .. import plots
+from ..plots.canvas import FIGURE_DPI, FIGURE_WIDTH
 from ..core.errors import BilayerError
 from ..core.stack import Design
 
@@ -164,7 +165,7 @@ class FigureImage(widgets.Image):
     """A matplotlib figure (no pyplot) shown as a PNG image widget and redrawn in place."""
 
     def __init__(self, height: float = 3.6, margins: dict | None = None, **kwargs):
-        width = round(plots.FIGURE_WIDTH * plots.FIGURE_DPI)  # shown at its own pixel size: crisp text
+        width = round(FIGURE_WIDTH * FIGURE_DPI)  # shown at its own pixel size: crisp text
         super().__init__(format="png", layout=widgets.Layout(width=f"{width}px", max_width="100%", height="auto"),
                          **kwargs)
         if margins is None:
