@@ -4,7 +4,6 @@ from __future__ import annotations
 import argparse
 import json
 import sys
-from typing import Callable
 
 
 def add_file_arguments(parser: argparse.ArgumentParser, section: str) -> None:
@@ -14,15 +13,23 @@ def add_file_arguments(parser: argparse.ArgumentParser, section: str) -> None:
     parser.add_argument("--json", action="store_true", help="print JSON with SI values instead of text")
 
 
-def run_assessment(args: argparse.Namespace, assess: Callable, report: Callable) -> int:
-    """Read the design, run ``assess(design)`` and print ``report(...)`` or the assessment's JSON."""
+def print_assessment(args: argparse.Namespace, job, design, assessment, source: str = "") -> None:
+    """Print the job's assessment: its JSON (SI, with ``design_name``), or its text report followed by the
+    shared and the job's cautions."""
+    from ..core.cautions import cautions_text
+
+    if args.json:
+        data = {"design_name": design.name, **assessment.to_dict()}
+        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False) + "\n")
+    else:
+        text = job.report(design, assessment, args.units, source)
+        sys.stdout.write(text + "\n\n" + cautions_text(job.cautions) + "\n")
+
+
+def run_assessment(args: argparse.Namespace, job) -> int:
+    """Read the design, run the job's assessment and print it."""
     from ..designs.design_file import read_design
 
     document = read_design(args.file)
-    assessment = assess(document.design)
-    if args.json:
-        data = {"design_name": document.design.name, **assessment.to_dict()}
-        sys.stdout.write(json.dumps(data, indent=2, allow_nan=False) + "\n")
-    else:
-        sys.stdout.write(report(document.design, assessment, args.units, document.source) + "\n")
+    print_assessment(args, job, document.design, job.assess(document.design), document.source)
     return 0

@@ -55,24 +55,8 @@ class AdhesivePanel(JobPanel):
         """The assessment on screen (:class:`bilayer.adhesive.AdhesiveAssessment`)."""
         return self.latest()
 
-    def cautions(self) -> tuple[str, ...]:
-        from ..adhesive.bond import ADHESIVE_CAUTIONS
-
-        return ADHESIVE_CAUTIONS
-
     def controls(self) -> widgets.Widget:
         return self.grouped_controls(GROUPS)
-
-    def compute(self, design):
-        from ..adhesive.bond import assess_adhesive_design
-
-        return assess_adhesive_design(design)
-
-    def report_text(self, assessment) -> str:
-        from ..adhesive.bond import ADHESIVE_CAUTIONS
-        from ..cli.bond import report
-
-        return self.report_without_cautions(report, assessment, ADHESIVE_CAUTIONS)
 
     def worst_case(self, assessment) -> int:
         """Index of the operating temperature with the largest |end shear|."""

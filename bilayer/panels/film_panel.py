@@ -48,23 +48,8 @@ class FilmPanel(JobPanel):
         """The assessment on screen (:class:`bilayer.films.FilmAssessment`)."""
         return self.latest()
 
-    def cautions(self) -> tuple[str, ...]:
-        from ..core.cautions import CAUTIONS
-
-        return tuple(CAUTIONS)
-
     def controls(self) -> widgets.Widget:
         return self.grouped_controls(GROUPS)
-
-    def compute(self, design):
-        from ..films.stress import assess_film_design
-
-        return assess_film_design(design)
-
-    def report_text(self, assessment) -> str:
-        from ..cli.film import report
-
-        return self.report_without_cautions(report, assessment)
 
     def render(self, assessment) -> None:
         from ..films.stress import stoney_curvature_ratio, stoney_stress_ratio

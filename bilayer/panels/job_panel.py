@@ -59,8 +59,18 @@ class JobPanel(View):
         self._on_model()
 
     # -- to be provided by each job ------------------------------------------------------------
+    @property
+    def job(self):
+        """The job of this panel's section (:data:`bilayer.designs.jobs.JOBS`)."""
+        from ..designs.jobs import JOBS
+
+        return JOBS[self.section]
+
     def cautions(self) -> tuple[str, ...]:
-        return ()
+        """The job's cautions (the shared ones for a job without its own)."""
+        from ..core.cautions import CAUTIONS
+
+        return self.job.cautions or tuple(CAUTIONS)
 
     def controls(self) -> widgets.Widget:
         """The entry widgets, arranged (default: one column in field order)."""
@@ -73,22 +83,18 @@ class JobPanel(View):
         accordion.selected_index = 0
         return accordion
 
-    def report_without_cautions(self, report, assessment, extra_cautions=()) -> str:
-        """The command line's ``report`` of this assessment, less its closing cautions (shown in the box
-        above the entries)."""
-        from ..core.cautions import cautions_text
-
-        text = report(self.current_design(), assessment, self.model.system)
-        for cautions in (cautions_text(extra_cautions), cautions_text()):
-            text = text.split("\n\n" + cautions)[0]
-        return text
+    def report_text(self, assessment) -> str:
+        """The job's text report of ``assessment`` (as the command line prints it, cautions aside: they
+        are in the box above the entries)."""
+        return self.job.report(self.current_design(), assessment, self.model.system)
 
     def shown_fields(self) -> tuple[str, ...]:
         """Fields that apply to the current choices (the others are hidden and not written)."""
         return self.fields
 
-    def compute(self, design):  # pragma: no cover - abstract
-        raise NotImplementedError
+    def compute(self, design):
+        """The job's assessment of ``design``."""
+        return self.job.assess(design)
 
     def render(self, result) -> None:  # pragma: no cover - abstract
         raise NotImplementedError

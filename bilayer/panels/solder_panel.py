@@ -63,27 +63,11 @@ class SolderPanel(JobPanel):
         """The assessment on screen (:class:`bilayer.solder.SolderAssessment`)."""
         return self.latest()
 
-    def cautions(self) -> tuple[str, ...]:
-        from ..solder.joint import SOLDER_CAUTIONS
-
-        return SOLDER_CAUTIONS
-
     def controls(self) -> widgets.Widget:
         from ..solder.joint import CYCLING_PRESETS
 
         self.form.entries["test_cycle"].widget.placeholder = "one of " + ", ".join(CYCLING_PRESETS)
         return self.grouped_controls(GROUPS)
-
-    def compute(self, design):
-        from ..solder.joint import assess_solder_design
-
-        return assess_solder_design(design)
-
-    def report_text(self, assessment) -> str:
-        from ..cli.solder import report
-        from ..solder.joint import SOLDER_CAUTIONS
-
-        return self.report_without_cautions(report, assessment, SOLDER_CAUTIONS)
 
     def render(self, assessment) -> None:
         joint = assessment.joint

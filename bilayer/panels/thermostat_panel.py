@@ -91,11 +91,6 @@ class ThermostatPanel(JobPanel):
         """The element report on screen (:class:`bilayer.thermostat.assessment.ThermostatReport`)."""
         return self.latest()
 
-    def cautions(self) -> tuple[str, ...]:
-        from ..thermostat.element import THERMOSTAT_CAUTIONS
-
-        return THERMOSTAT_CAUTIONS
-
     def controls(self) -> widgets.Widget:
         entries = self.form.entries
         geometry = widgets.VBox([entries[n].widget for n in self.fields if n in COMMON[:3] or

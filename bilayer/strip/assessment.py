@@ -5,13 +5,36 @@ layer numbers counted from 1 at the bottom, as everywhere in files and reports.
 """
 from __future__ import annotations
 
-from typing import Callable
+from dataclasses import dataclass
+from typing import Any, Callable
 
 import numpy as np
 
 from ..core.errors import InputError
 
-__all__ = ["interface_options", "interface_for_design", "check_temperature", "trust_report_for_design"]
+__all__ = ["InterfaceAssessment", "interface_options", "interface_for_design", "check_temperature",
+           "trust_report_for_design", "assess_interface_design"]
+
+
+@dataclass(frozen=True)
+class InterfaceAssessment:
+    """The [interface] job's answer: one interface result per operating temperature and, when the FE
+    check ran, its trust report (at :func:`check_temperature`)."""
+
+    results: tuple
+    trust: Any = None
+    trust_temperature: float | None = None
+
+    @property
+    def warnings(self) -> tuple[str, ...]:
+        found: list[str] = []
+        for result in self.results:
+            found += [text for text in result.warnings if text not in found]
+        return tuple(found)
+
+    def to_dict(self) -> dict:
+        trust = None if self.trust is None else {**self.trust.to_dict(), "temperature": self.trust_temperature}
+        return {"interface": [result.to_dict() for result in self.results], "trust": trust}
 
 
 def interface_options(design) -> dict:
@@ -75,3 +98,12 @@ def trust_report_for_design(design, progress: Callable[[float, str], None] | Non
         width=options.get("width"),
         progress=progress,
     )
+
+
+def assess_interface_design(design, fe: bool = False, progress: Callable[[float, str], None] | None = None,
+                            refine: bool | None = None) -> InterfaceAssessment:
+    """Interface stresses at every operating temperature; with ``fe`` also the trust report."""
+    results = interface_for_design(design)
+    if not fe:
+        return InterfaceAssessment(results)
+    return InterfaceAssessment(results, trust_report_for_design(design, progress, refine), check_temperature(design))

@@ -1,5 +1,7 @@
 """Stresses along the strip as a job: the ``[interface]`` table, checked by :mod:`bilayer.strip.assessment`."""
 from ..core.job import Job
+from .assessment import assess_interface_design
+from .report import report
 from .section import SECTION
 
 INTERFACE_CAUTIONS = (
@@ -8,4 +10,4 @@ INTERFACE_CAUTIONS = (
 )
 
 JOB = Job(SECTION, "stresses along the strip: interface shear and peel near the ends, FE trust report",
-          INTERFACE_CAUTIONS)
+          assess_interface_design, report, INTERFACE_CAUTIONS)
