@@ -23,8 +23,6 @@ file in the same directory, fsync, ``os.replace``), so a failed save leaves the 
 """
 from __future__ import annotations
 
-import json
-import math
 import os
 import re
 import warnings
@@ -34,6 +32,7 @@ from typing import Any, Mapping
 
 from ..core.errors import DesignFileError, InputError, SuspiciousInputWarning
 from ..core.files import write_text_atomic
+from ..core.toml_text import BARE_KEY, dumps
 from ..core.section_spec import Location, suggest
 from .sections import RECORD_TABLES, job_sections, section, sections
 from ..core.section_spec import _hint_of
@@ -51,7 +50,6 @@ __all__ = [
 
 FORMAT_VERSION = 1
 _TOP_KEYS = ("format_version", "name", "notes")
-_BARE_KEY = re.compile(r"[A-Za-z0-9_\-]+")
 
 
 @dataclass(frozen=True)
@@ -338,7 +336,7 @@ def design_to_text(design: Any, results: Any = None, system: str = "si", library
     )
     if results is not None:
         header += "# [results] is a snapshot of the engine's answer in SI units (m, Pa, 1/m, N/m, K).\n"
-    return header + "\n" + _dump(document)
+    return header + "\n" + dumps(document)
 
 
 def _material_ids(design: Any, library: Any) -> dict[int, tuple[str, Any]]:
@@ -364,7 +362,7 @@ def _material_ids(design: Any, library: Any) -> dict[int, tuple[str, Any]]:
         elif material.key and library.get(material.key) == material:
             ids[id(material)] = (material.key, None)
         else:
-            base = material.key if material.key and _BARE_KEY.fullmatch(material.key) else (
+            base = material.key if material.key and BARE_KEY.fullmatch(material.key) else (
                 re.sub(r"[^0-9a-z]+", "_", material.name.casefold()).strip("_") or "material")
             material_id, counter = base, 1
             while normalize_name(material_id) in taken or library.get(material_id) is not None:
@@ -385,66 +383,3 @@ def save_design(design: Any, path: "str | os.PathLike", results: Any = None, sys
     and the temporary file removed.
     """
     return write_text_atomic(path, design_to_text(design, results, system, library, extra))
-
-
-# --- a small TOML writer (tables and arrays of tables in our order, no inline tables) --------------
-
-
-def _key(name: str) -> str:
-    return name if _BARE_KEY.fullmatch(name) else _string(name)
-
-
-def _string(text: str) -> str:
-    try:
-        text.encode("utf-8")
-    except UnicodeEncodeError:
-        raise InputError("text", text, "text that can be written as UTF-8") from None
-    if ("\n" in text and "'''" not in text and not text.endswith("'")
-            and not any((ord(c) < 32 and c not in "\n\t") or ord(c) == 127 for c in text)):
-        return "'''\n" + text + "'''"
-    return json.dumps(text, ensure_ascii=False).replace("\x7f", "\\u007f")
-
-
-def _value(value: Any) -> str:
-    if isinstance(value, bool):
-        return "true" if value else "false"
-    if isinstance(value, int):
-        return str(value)
-    if isinstance(value, float):
-        if math.isnan(value):
-            return "nan"
-        if math.isinf(value):
-            return "inf" if value > 0 else "-inf"
-        return repr(value)
-    if isinstance(value, str):
-        return _string(value)
-    if isinstance(value, (list, tuple)):
-        return "[" + ", ".join(_value(item) for item in value) + "]"
-    if isinstance(value, Mapping):
-        return "{ " + ", ".join(f"{_key(k)} = {_value(v)}" for k, v in value.items()) + " }"
-    raise InputError("value", value, "a number, text, boolean, list or table")
-
-
-def _is_table_array(value: Any) -> bool:
-    return isinstance(value, (list, tuple)) and bool(value) and all(isinstance(v, Mapping) for v in value)
-
-
-def _dump(document: Mapping, path: tuple[str, ...] = ()) -> str:
-    lines: list[str] = []
-    blocks: list[str] = []
-    for name, value in document.items():
-        if isinstance(value, Mapping):
-            inner = _dump(value, (*path, name))
-            header = "[" + ".".join(_key(p) for p in (*path, name)) + "]"
-            only_tables = value and all(isinstance(v, Mapping) or _is_table_array(v) for v in value.values())
-            blocks.append(inner if only_tables else header + "\n" + inner)
-        elif _is_table_array(value):
-            header = "[[" + ".".join(_key(p) for p in (*path, name)) + "]]"
-            for entry in value:
-                blocks.append(header + "\n" + _dump(entry, (*path, name)))
-        else:
-            lines.append(f"{_key(name)} = {_value(value)}")
-    text = "\n".join(lines) + ("\n" if lines else "")
-    for block in blocks:
-        text += ("\n" if text else "") + block
-    return text

@@ -35,6 +35,7 @@ from typing import Any, Callable, Iterable, Mapping, Sequence
 
 from ..core.errors import DesignFileError, InputError
 from ..core.jsonable import plain
+from ..core.toml_text import dumps
 from .section import RECORD, REVIEW, SUPPORTS, VERDICTS
 
 __all__ = [
@@ -611,10 +612,6 @@ def _record_from_document(document: Any, library: Any) -> DesignRecord:
 # --- appending a review to a file ------------------------------------------------------------------
 
 
-def _toml_string(text: str) -> str:
-    return json.dumps(text, ensure_ascii=False).replace("\x7f", "\\u007f")
-
-
 def append_review(path: "str | os.PathLike", reviewer: str, verdict: str, comment: str = "",
                   date: str | None = None, library: Any = None) -> DesignRecord:
     """Append one review to the record file at ``path`` and return the updated record.
@@ -639,8 +636,7 @@ def append_review(path: "str | os.PathLike", reviewer: str, verdict: str, commen
         _refuse_unsound(record)
         updated = record.with_review(reviewer, verdict, comment, date)
         entry = updated.reviews[-1]
-        block = "[[review]]\n" + "".join(f"{key} = {_toml_string(value)}\n"
-                                         for key, value in _review_table(entry).items())
+        block = dumps({"review": [_review_table(entry)]})
         new_text = base + ("" if base.endswith("\n") else "\n") + "\n" + block
         result = read_record_text(new_text, str(path), library)
         if result.reviews[:-1] != record.reviews or result.reviews[-1] != entry:

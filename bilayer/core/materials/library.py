@@ -32,6 +32,7 @@ from typing import Iterable, Iterator, Mapping
 
 from ..errors import DesignFileError, InputError, UnknownMaterialError
 from ..files import write_text_atomic
+from ..toml_text import dumps
 from ..units import to_si
 from .cte import CTEModel, ConstantCTE, InstantaneousCTETable, MeanCTETable, SiliconCTE
 from .material import Material
@@ -373,6 +374,12 @@ class MaterialLibrary(Mapping[str, Material]):
         return cls.from_toml_text(text, where=str(path))
 
     @classmethod
+    def from_document(cls, document: Mapping, where: str = "<text>") -> "MaterialLibrary":
+        """The library of a material-file document already read as TOML (``format``, ``sources``,
+        ``materials`` tables); errors name ``where``."""
+        return _parse_document(document, where)
+
+    @classmethod
     def from_toml_text(cls, text: str, where: str = "<text>") -> "MaterialLibrary":
         import tomllib
 
@@ -416,45 +423,19 @@ def material_to_table(material: Material) -> dict:
     return table
 
 
-def _toml_value(value) -> str:
-    import json
-
-    if isinstance(value, bool):
-        return "true" if value else "false"
-    if isinstance(value, (int, float)):
-        return repr(float(value))
-    if isinstance(value, str):
-        return json.dumps(value, ensure_ascii=False)
-    if isinstance(value, list):
-        return "[" + ", ".join(_toml_value(v) for v in value) + "]"
-    raise TypeError(f"cannot write {value!r} to a material file")
-
-
-def _toml_table(lines: list[str], header: str, table: Mapping) -> None:
-    lines.append(f"[{header}]")
-    nested = []
-    for key, value in table.items():
-        if isinstance(value, Mapping):
-            nested.append((key, value))
-        else:
-            lines.append(f"{key} = {_toml_value(value)}")
-    lines.append("")
-    for key, value in nested:
-        _toml_table(lines, f"{header}.{key}", value)
-
-
 def write_material_file(path: str | os.PathLike, materials: Iterable[Material],
                         citations: Mapping[str, str] | None = None) -> Path:
     """Write materials to a TOML material file atomically (temporary file, then rename)."""
-    lines = ["# bilayer material file: SI units (Pa, 1/K, kg/m^3), temperatures in kelvin", ""]
-    if citations:
-        _toml_table(lines, "sources", dict(citations))
+    document: dict = {"sources": dict(citations)} if citations else {}
+    tables = {}
     for material in materials:
         key = material.key or _key_from_name(material.name)
         if not re.fullmatch(r"[A-Za-z0-9_\-]+", key):
             raise InputError("key", key, "letters, digits, '_' and '-' only")
-        _toml_table(lines, f"materials.{key}", material_to_table(material))
-    return write_text_atomic(path, "\n".join(lines))
+        tables[key] = material_to_table(material)
+    document["materials"] = tables
+    header = "# bilayer material file: SI units (Pa, 1/K, kg/m^3), temperatures in kelvin\n\n"
+    return write_text_atomic(path, header + dumps(document))
 
 
 # --- module-level helpers ----------------------------------------------------------------------------

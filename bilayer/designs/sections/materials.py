@@ -61,8 +61,6 @@ def _check_cte_table(cte: Mapping, location: Location) -> None:
 
 def read_materials(table: object, source: str, line_of: Callable[[str, str], int | None]) -> dict[str, Any]:
     """Materials of the [materials] tables by id; errors name the table and key."""
-    import tomli_w
-
     from ...core.materials import MaterialLibrary
     from ...core.materials.library import warn_if_unit_slip
 
@@ -87,7 +85,7 @@ def read_materials(table: object, source: str, line_of: Callable[[str, str], int
             _check_cte_table(body["cte"], Location(source, f"[{cte_path}]", lambda k: line_of(cte_path, k)))
         document = {"materials": {material_id: {k: v for k, v in body.items() if k != "key"}}}
         try:
-            library = MaterialLibrary.from_toml_text(tomli_w.dumps(document), where=source)
+            library = MaterialLibrary.from_document(document, where=source)
         except DesignFileError as error:
             raise _relocated(error, source, material_id, location) from None
         except InputError as error:
