@@ -90,6 +90,7 @@ def _delete(document, path):
 
 
 def _dumps(document) -> str:
+    """Mutated documents are written by an independent TOML writer (tomli-w), not by bilayer's own."""
     import tomli_w
 
     return tomli_w.dumps(document)
