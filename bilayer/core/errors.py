@@ -38,10 +38,15 @@ class InputError(BilayerError, ValueError):
         self.field = field
         self.value = value
         self.valid = valid
+        self.hint = hint
         message = f"{field}: {value!r} is not valid; expected {valid}"
         if hint:
             message += f" ({hint})"
         super().__init__(message)
+
+    def __reduce__(self):
+        """Pickle by the constructor's arguments, so the error crosses to and from worker processes."""
+        return type(self), (self.field, self.value, self.valid, self.hint)
 
 
 class UnitError(InputError, TypeError):
