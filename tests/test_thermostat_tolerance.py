@@ -128,8 +128,9 @@ def test_data_sheet_monte_carlo_is_exact_per_sample():
 def test_progress_is_reported_per_chunk():
     calls = []
     monte_carlo_set_point(datasheet_element(), 1.35e-3, {"flexivity": Tolerance(0.05)}, samples=10_000,
-                          chunk=3_000, progress=lambda done, total: calls.append((done, total)))
-    assert calls == [(3000, 10000), (6000, 10000), (9000, 10000), (10000, 10000)]
+                          chunk=3_000, progress=lambda fraction, message: calls.append((fraction, message)))
+    assert calls == [(0.3, "3000/10000 samples"), (0.6, "6000/10000 samples"), (0.9, "9000/10000 samples"),
+                     (1.0, "10000/10000 samples")]
 
 
 def test_u_shape_monte_carlo_uses_exact_inverse():

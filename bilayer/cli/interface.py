@@ -4,9 +4,8 @@ from __future__ import annotations
 import argparse
 import json
 import sys
-import time
 
-from .job_output import print_assessment
+from .job_output import StderrProgress, print_assessment
 
 
 NAME = "interface"
@@ -30,24 +29,6 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
     parser.add_argument("--no-refine", action="store_true", help="with --fe: one mesh only (no refinement study)")
     parser.add_argument("--units", choices=("si", "us"), default="si", help="display units (default si)")
     parser.add_argument("--json", action="store_true", help="print JSON with SI values instead of text")
-
-
-class _Progress:
-    """Progress on stderr, shown only once a run has lasted more than a few seconds."""
-
-    def __init__(self, delay: float = 2.0):
-        self.start = time.perf_counter()
-        self.delay = delay
-        self.shown = False
-
-    def __call__(self, fraction: float, message: str) -> None:
-        if not self.shown and (fraction >= 1.0 or time.perf_counter() - self.start < self.delay):
-            return
-        self.shown = True
-        print(f"\rbilayer: finite-element check {100 * fraction:3.0f} % ({message})".ljust(78), end="",
-              file=sys.stderr, flush=True)
-        if fraction >= 1.0:
-            print(file=sys.stderr)
 
 
 def _design_with_options(args):
@@ -77,7 +58,7 @@ def run(args: argparse.Namespace) -> int:
     from ..strip.job import JOB
 
     document, design = _design_with_options(args)
-    progress = None if args.json else _Progress()
+    progress = None if args.json else StderrProgress("finite-element check")
     assessment = assess_interface_design(design, args.fe, progress, refine=False if args.no_refine else None)
     if args.json:
         data = {"design_name": design.name, **assessment.to_dict(), "cautions": list(CAUTIONS) + list(JOB.cautions)}

@@ -4,6 +4,7 @@ from __future__ import annotations
 import argparse
 import json
 import sys
+import time
 
 
 def add_file_arguments(parser: argparse.ArgumentParser, section: str) -> None:
@@ -33,3 +34,23 @@ def run_assessment(args: argparse.Namespace, job) -> int:
     document = read_design(args.file)
     print_assessment(args, job, document.design, job.assess(document.design), document.source)
     return 0
+
+
+class StderrProgress:
+    """A :data:`bilayer.core.progress.Progress` printed on one stderr line, shown only once the run has
+    lasted ``delay`` seconds (short runs stay quiet)."""
+
+    def __init__(self, what: str, delay: float = 2.0):
+        self.what = what
+        self.start = time.perf_counter()
+        self.delay = delay
+        self.shown = False
+
+    def __call__(self, fraction: float, message: str) -> None:
+        if not self.shown and (fraction >= 1.0 or time.perf_counter() - self.start < self.delay):
+            return
+        self.shown = True
+        print(f"\rbilayer: {self.what} {100 * fraction:3.0f} % ({message})".ljust(78), end="", file=sys.stderr,
+              flush=True)
+        if fraction >= 1.0:
+            print(file=sys.stderr)

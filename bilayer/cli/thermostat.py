@@ -28,18 +28,13 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
                         help="also rank library material pairs by 'flexivity' or 'merit' (E*F^2) within the stress limit")
 
 
-def _progress(done: int, total: int) -> None:
-    print(f"\rbilayer: Monte Carlo {done}/{total} samples ({100 * done / total:.0f} %)", end="", file=sys.stderr)
-    if done == total:
-        print(file=sys.stderr)
-
-
 def run(args: argparse.Namespace) -> int:
     from ..core.cautions import CAUTIONS, cautions_text
     from ..designs.design_file import read_design
     from ..core.errors import InputError
     from ..core.jsonable import plain
     from ..thermostat.assessment import analyse
+    from .job_output import StderrProgress
 
     design = read_design(args.file).design
     if "thermostat" not in design.sections:
@@ -55,7 +50,7 @@ def run(args: argparse.Namespace) -> int:
         design = design.with_section("thermostat", {**design.sections["thermostat"], **changes})
     samples = design.sections["thermostat"].get("samples", 0)
     show_progress = not args.json and design.sections["thermostat"].get("monte_carlo") and samples >= 500_000
-    report = analyse(design, progress=_progress if show_progress else None)
+    report = analyse(design, progress=StderrProgress("Monte Carlo", delay=0.0) if show_progress else None)
     extra, text = {}, []
     if args.optimum_ratio:
         extra["optimum_ratio"] = _optimum(report, design)

@@ -153,8 +153,8 @@ class ThermostatPanel(JobPanel):
         self.scatter_button.disabled = True
         self.scatter.value = message_html("running…", "info")
 
-        def progress(done: int, total: int) -> None:
-            self.progress.value = done
+        def progress(fraction: float, message: str) -> None:
+            self.progress.value = round(fraction * total)
 
         def work() -> None:
             from ..thermostat.assessment import analyse

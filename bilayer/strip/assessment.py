@@ -6,11 +6,12 @@ layer numbers counted from 1 at the bottom, as everywhere in files and reports.
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any, Callable
+from typing import Any
 
 import numpy as np
 
 from ..core.errors import InputError
+from ..core.progress import Progress
 
 __all__ = ["InterfaceAssessment", "interface_options", "interface_for_design", "check_temperature",
            "trust_report_for_design", "assess_interface_design"]
@@ -77,7 +78,7 @@ def check_temperature(design) -> float:
     return float(operating[np.argmax(np.abs(operating - design.temperatures.stress_free))])
 
 
-def trust_report_for_design(design, progress: Callable[[float, str], None] | None = None, refine: bool | None = None):
+def trust_report_for_design(design, progress: Progress | None = None, refine: bool | None = None):
     """The trust report of the design at :func:`check_temperature` (FE options from the section)."""
     from .fe import MeshOptions
     from ..core.stack import Temperatures
@@ -100,7 +101,7 @@ def trust_report_for_design(design, progress: Callable[[float, str], None] | Non
     )
 
 
-def assess_interface_design(design, fe: bool = False, progress: Callable[[float, str], None] | None = None,
+def assess_interface_design(design, fe: bool = False, progress: Progress | None = None,
                             refine: bool | None = None) -> InterfaceAssessment:
     """Interface stresses at every operating temperature; with ``fe`` also the trust report."""
     results = interface_for_design(design)

@@ -26,16 +26,16 @@ from __future__ import annotations
 
 import time
 from dataclasses import dataclass, replace
-from typing import Callable, Sequence
+from typing import Sequence
 
 import numpy as np
 
+from ..core.progress import Progress
 from ..core.errors import InputError, check_range
 from ..core.stack import BendingState, Stack, Temperatures
 
 __all__ = ["MeshOptions", "FEInterface", "FEResult", "RefinementStudy", "fe_check", "refinement_study", "strip_mesh"]
 
-Progress = Callable[[float, str], None]
 
 PLANE = {BendingState.NARROW: "plane stress", BendingState.WIDE: "plane strain"}
 

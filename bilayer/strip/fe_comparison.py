@@ -20,10 +20,10 @@ strain and flagged.
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Callable
 
 import numpy as np
 
+from ..core.progress import Progress
 from ..core.stack import BendingState, Stack, Temperatures
 
 __all__ = ["TrustRow", "TrustFlag", "TrustReport", "trust_report", "dundurs_parameters", "TOLERANCE"]
@@ -148,7 +148,7 @@ def trust_report(
     refine: bool = True,
     distances=None,
     width: float | None = None,
-    progress: Callable[[float, str], None] | None = None,
+    progress: Progress | None = None,
 ) -> TrustReport:
     """Compare the closed forms with the FE check for this design and flag their limits.
 

@@ -9,10 +9,11 @@ the indicative snap estimate. Every report carries the thermostat cautions.
 from __future__ import annotations
 
 from dataclasses import dataclass
-from typing import Any, Callable
+from typing import Any
 
 import numpy as np
 
+from ..core.progress import Progress
 from ..core.errors import InputError
 from ..core.stack import Design
 from .element import THERMOSTAT_ASSUMPTIONS, THERMOSTAT_CAUTIONS, ThermalElement, closing_temperature, contact_load, gap_for_set_point, response, work_output, working_span
@@ -174,7 +175,7 @@ def _t(value, format_quantity, system):
     return "outside the search range" if value is None else format_quantity(value, "temperature", system)
 
 
-def analyse(design: Design, progress: Callable[[int, int], None] | None = None) -> ThermostatReport:
+def analyse(design: Design, progress: Progress | None = None) -> ThermostatReport:
     """Run the checks the design's [thermostat] section asks for (see the module docstring).
 
     The travel curve and the search for the stress limits cover ``curve_from``..``curve_to`` (default:

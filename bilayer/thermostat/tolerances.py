@@ -30,11 +30,12 @@ from __future__ import annotations
 import math
 import time
 from dataclasses import dataclass
-from typing import Callable, Mapping
+from typing import Mapping
 
 import numpy as np
 
 from ..core import laminate
+from ..core.progress import Progress
 from ..core.errors import InputError, check_range
 from .element import THERMOSTAT_CAUTIONS, ThermalElement, closing_temperature
 from .strip import DatasheetStrip, ThermostatStrip
@@ -263,10 +264,10 @@ def _summary(values: np.ndarray) -> tuple[float, float, dict]:
 def monte_carlo_set_point(
     element: ThermalElement, gap: float, tolerances: Mapping[str, Tolerance], samples: int = 1_000_000,
     side: str = "auto", seed: int | None = 0, chunk: int = 250_000,
-    progress: Callable[[int, int], None] | None = None, search=None, keep_values: bool = False,
+    progress: Progress | None = None, search=None, keep_values: bool = False,
 ) -> SetPointScatter:
     """Monte Carlo set-point scatter with ``samples`` draws, evaluated in chunks of ``chunk`` samples
-    (memory stays bounded); ``progress(done, total)`` is called after every chunk. Draws are made per
+    (memory stays bounded); ``progress(fraction, message)`` is called after every chunk. Draws are made per
     chunk, input by input in the order of ``tolerances``."""
     start_time = time.perf_counter()
     tolerances = _check_tolerances(element, tolerances)
@@ -289,7 +290,7 @@ def monte_carlo_set_point(
             sums[k] += (x.sum(), (x * x).sum(), (x * y).sum())
         done += size
         if progress is not None:
-            progress(done, samples)
+            progress(done / samples, f"{done}/{samples} samples")
     good = np.isfinite(out)
     failed = int(samples - good.sum())
     values = out[good]
