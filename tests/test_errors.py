@@ -22,3 +22,14 @@ def test_errors_survive_pickling_with_their_fields_and_message(error):
 def test_an_input_error_is_also_a_value_error():
     with pytest.raises(ValueError, match="thickness: -1 is not valid; expected a length > 0"):
         raise InputError("thickness", -1, "a length > 0")
+
+
+def test_a_missing_optional_library_names_the_feature_and_the_extra():
+    """(derived here) require() turns an ImportError into one line that says what to install."""
+    from bilayer.core.errors import BilayerError, MissingDependencyError, require
+
+    assert require("math", "a test", "none").sqrt(4.0) == 2.0
+    with pytest.raises(MissingDependencyError, match=r"bilayer report needs no_such_module_xyz, which is not "
+                                                     r"installed: pip install 'bilayer\[report\]'") as caught:
+        require("no_such_module_xyz", "bilayer report", "report")
+    assert isinstance(caught.value, BilayerError) and isinstance(caught.value, ImportError)

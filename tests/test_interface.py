@@ -287,7 +287,7 @@ def interface_cases(draw):
     for i in range(n):
         E = draw(st.floats(2e9, 4e11))
         nu = draw(st.floats(0.0, 0.45))
-        alpha = draw(st.floats(0.0, 3e-5))
+        alpha = draw(st.one_of(st.just(0.0), st.floats(1e-8, 3e-5)))  # no subnormal CTEs: they underflow the scales
         t = draw(st.floats(2e-5, 2e-3))
         layers.append((Material(f"m{i}", E, nu, alpha), t))
     stack = bl.Stack.of(*layers)

@@ -22,7 +22,10 @@ def add_arguments(parser: argparse.ArgumentParser) -> None:
 
 
 def run(args: argparse.Namespace) -> int:
+    from ..core.errors import require
     from ..designs.jobs import cautions_for
+
+    require("matplotlib", "bilayer report (its figures)", "report")
     from ..records.check import Tolerance, check_record
     from ..records.record import read_record
     from ..report.html_report import write_report

@@ -15,6 +15,8 @@ __all__ = [
     "UnitError",
     "UnknownMaterialError",
     "DesignFileError",
+    "MissingDependencyError",
+    "require",
     "SuspiciousInputWarning",
     "ModelLimitWarning",
     "check_finite",
@@ -62,6 +64,23 @@ class UnknownMaterialError(InputError, KeyError):
 
 class DesignFileError(InputError):
     """A design file is malformed, truncated, or has an unknown or misplaced key."""
+
+
+class MissingDependencyError(BilayerError, ImportError):
+    """An optional library that a feature needs is not installed; the message says which extra to install."""
+
+
+def require(module: str, feature: str, extra: str):
+    """Import and return ``module``, or raise :class:`MissingDependencyError` saying that ``feature``
+    needs it and how to install it (``pip install 'bilayer[extra]'``)."""
+    from importlib import import_module
+
+    try:
+        return import_module(module)
+    except ImportError as error:
+        raise MissingDependencyError(
+            f"{feature} needs {module.split('.')[0]}, which is not installed: pip install 'bilayer[{extra}]'"
+        ) from error
 
 
 class SuspiciousInputWarning(UserWarning):

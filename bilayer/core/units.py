@@ -75,11 +75,6 @@ class Kind:
     examples: tuple[str, ...]
     display: dict[str, tuple[tuple[str, float], ...]]
 
-    @property
-    def si_label(self) -> str:
-        return self.si_unit
-
-
 _PSI = 6894.757293168361  # Pa per psi (lbf/in^2 with g = 9.80665 m/s^2, 1 in = 25.4 mm)
 
 

@@ -130,9 +130,3 @@ class FECheckPanel(widgets.VBox):
         if self._inputs() != self._design:
             self._design_changed()
 
-    @property
-    def largest_difference(self) -> float:
-        """Largest |relative difference| of the rows that have a tolerance (NaN before a run)."""
-        if self.report is None:
-            return float("nan")
-        return max((abs(r.difference) for r in self.report.rows if r.tolerance is not None), default=0.0)

@@ -16,12 +16,10 @@ __all__ = ["ResultTable", "StressView", "ShapeView", "SignConventionSketch", "Un
 
 
 def caution_html() -> str:
-    """The project's cautions as a small grey paragraph (empty if the cautions module is absent)."""
-    try:
-        from ..core.cautions import CAUTIONS
-    except ImportError:  # pragma: no cover - arrives with the engine issue
-        return ""
-    text = " ".join(CAUTIONS) if not isinstance(CAUTIONS, str) else CAUTIONS
+    """The project's cautions as a small grey paragraph."""
+    from ..core.cautions import CAUTIONS
+
+    text = " ".join(CAUTIONS)
     return f"<p style='color:#666;font-size:0.8em;line-height:1.3'>{escape(text)}</p>"
 
 

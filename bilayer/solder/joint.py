@@ -378,12 +378,6 @@ class SolderJointResult:
         """N_50(field)/N_50(test) by Engelmaier on both cycles (beside the Norris-Landzberg value)."""
         return None if self.test_median_life is None else self.median_life / self.test_median_life
 
-    def test_cycles_for(self, field_cycles: float) -> float:
-        """Test cycles equivalent to ``field_cycles`` by the Norris-Landzberg factor."""
-        if self.acceleration_factor is None:
-            raise InputError("test", None, "a test cycle given to check_solder_joint")
-        return check_range("field_cycles", field_cycles, 0.0) / self.acceleration_factor
-
     def to_dict(self) -> dict:
         return {
             "dnp": self.dnp,

@@ -31,7 +31,7 @@ from typing import Sequence
 import numpy as np
 
 from ..core.progress import Progress
-from ..core.errors import InputError, check_range
+from ..core.errors import InputError, check_range, require
 from ..core.stack import BendingState, Stack, Temperatures
 
 __all__ = ["MeshOptions", "FEInterface", "FEResult", "RefinementStudy", "fe_check", "refinement_study", "strip_mesh"]
@@ -342,11 +342,8 @@ def fe_check(
         raise InputError("mesh", mesh, "a MeshOptions")
     report = progress or (lambda fraction, message: None)
     start = time.perf_counter()
-    try:
-        import skfem as fem
-        from skfem.helpers import ddot, sym_grad, trace
-    except ImportError as error:  # pragma: no cover - depends on the installation
-        raise ImportError("the FE check needs scikit-fem: pip install 'bilayer[fe]'") from error
+    fem = require("skfem", "the finite-element check", "fe")
+    from skfem.helpers import ddot, sym_grad, trace
 
     report(0.0, "meshing")
     t = stack.thicknesses

@@ -361,11 +361,6 @@ class Spiral(ElementForm):
     def moment_arm(self) -> float:
         return 1.0
 
-    def pointer_travel(self, dkappa):
-        """Arc travel of the pointer tip [m] (pointer radius times rotation)."""
-        return self.pointer_length * self.travel(dkappa)
-
-
 @dataclass(frozen=True)
 class Helix(Spiral):
     """Helical coil (strip width along the coil axis) with lead angle ``lead_angle`` [rad].

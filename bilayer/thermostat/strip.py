@@ -251,11 +251,6 @@ class ThermostatStrip:
             for layer in self.stack.layers
         ])
 
-    def strength_labels(self) -> tuple[str, ...]:
-        return tuple(
-            f"{layer.name}: {layer.material.strength_kind or 'strength'}" for layer in self.stack.layers
-        )
-
     def evaluate(self, temperature):
         """Full engine result (with its warnings) at one or many temperatures."""
         return evaluate(self.stack, Temperatures(self.stress_free_temperature, temperature), self.state)
@@ -391,9 +386,6 @@ class DatasheetStrip:
     def allowable_stresses(self, factor: float) -> np.ndarray:
         factor = check_range("thermostat.stress_factor", factor, 0.0, 100.0, unit="")
         return np.array([np.nan if self.allowable is None else self.allowable / factor])
-
-    def strength_labels(self) -> tuple[str, ...]:
-        return ("strip: supplier maximum design stress",)
 
     def data_warnings(self, temperatures) -> tuple[str, ...]:
         T = _temperature_array("temperature", temperatures)

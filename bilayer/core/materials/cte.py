@@ -262,10 +262,6 @@ class MeanCTETable(CTEModel):
         object.__setattr__(self, "_t", _frozen_array(t))
         object.__setattr__(self, "_v", _frozen_array(v))
 
-    def mean_from_reference(self, t):
-        """The tabulated mean coefficient abar(T0 -> T), interpolated [1/K]."""
-        return _output(np.interp(_absolute_temperatures("t", t), self._t, self._v))
-
     def _strain_from_reference(self, t):
         return np.interp(t, self._t, self._v) * (t - self.reference_temperature)
 

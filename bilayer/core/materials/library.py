@@ -101,10 +101,8 @@ class _Reader:
 
     def _from_unit_string(self, key: str, value: str, kind: str) -> float:
         # The only place where unit strings enter; bilayer.core.units (pint) loads on first use.
-        try:
-            from ..units import parse
-        except ImportError as exc:  # units module not installed yet
-            raise self.error(key, value, "a plain SI number", f"unit strings need bilayer.core.units ({exc})") from None
+        from ..units import parse
+
         try:
             return parse(value, kind, f"{self.where}: {key}")
         except InputError as exc:
@@ -325,10 +323,6 @@ class MaterialLibrary(Mapping[str, Material]):
     def citations(self) -> Mapping[str, str]:
         """Citation key -> full citation, from the files' [sources] tables."""
         return self._citations
-
-    def lookup(self, name: str) -> Material:
-        """The material with this key or name (same as ``library[name]``)."""
-        return self[name]
 
     def search(self, text: str) -> tuple[Material, ...]:
         """Materials whose key, name or category contains ``text`` (ignoring case and punctuation)."""
