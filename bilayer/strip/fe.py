@@ -295,8 +295,13 @@ class _Solution:
         return total / (2.0 * len(shifts_x))
 
 
-def check_strip_inputs(stack, temperatures, length, state, distances):
-    """Validated (length, state, distances) of an FE run; default distances cut to those short of mid-length."""
+def check_strip_inputs(stack, temperatures, length, state, distances, mesh=None):
+    """Validated (length, state, distances) of an FE run; default distances cut to those short of mid-length.
+
+    The one place where the inputs of an FE run are checked: the runs behind it (:func:`solve_strip`,
+    :func:`refine_strip`) take them as they are."""
+    if mesh is not None and not isinstance(mesh, MeshOptions):
+        raise InputError("mesh", mesh, "a MeshOptions")
     if not isinstance(stack, Stack):
         raise InputError("stack", stack, "a Stack")
     if not isinstance(temperatures, Temperatures):
@@ -337,9 +342,12 @@ def fe_check(
     and 1 times the total thickness, those short of mid-length); ``heights`` [m] where they are
     sampled (default: every interface). ``progress(fraction, message)`` is called as the run advances.
     """
-    length, state, distances = check_strip_inputs(stack, temperatures, length, state, distances)
-    if not isinstance(mesh, MeshOptions):
-        raise InputError("mesh", mesh, "a MeshOptions")
+    length, state, distances = check_strip_inputs(stack, temperatures, length, state, distances, mesh)
+    return solve_strip(stack, temperatures, length, state, mesh, distances, heights, progress)
+
+
+def solve_strip(stack, temperatures, length, state, mesh, distances, heights=None, progress=None) -> FEResult:
+    """:func:`fe_check` on inputs already checked by :func:`check_strip_inputs` (the door of every FE run)."""
     report = progress or (lambda fraction, message: None)
     start = time.perf_counter()
     fem = require("skfem", "the finite-element check", "fe")
@@ -527,6 +535,13 @@ def refinement_study(
     progress: Progress | None = None,
 ) -> RefinementStudy:
     """Run ``levels`` meshes, each with every element of the previous one halved (4x the unknowns)."""
+    length, state, distances = check_strip_inputs(stack, temperatures, length, state, distances, mesh)
+    return refine_strip(stack, temperatures, length, state, mesh, levels, distances, heights, progress)
+
+
+def refine_strip(stack, temperatures, length, state, mesh, levels, distances, heights=None,
+                 progress=None) -> RefinementStudy:
+    """:func:`refinement_study` on inputs already checked by :func:`check_strip_inputs`."""
     if not isinstance(levels, int) or not 2 <= levels <= 4:
         raise InputError("levels", levels, "an integer from 2 to 4")
     weights = 4.0 ** np.arange(levels)
@@ -537,5 +552,5 @@ def refinement_study(
             if progress is not None:
                 progress(done[i] + fraction * (done[i + 1] - done[i]), f"mesh {i + 1} of {levels}: {message}")
 
-        runs.append(fe_check(stack, temperatures, length, state, mesh.refined(2**i), distances, heights, step))
+        runs.append(solve_strip(stack, temperatures, length, state, mesh.refined(2**i), distances, heights, step))
     return RefinementStudy(tuple(runs))

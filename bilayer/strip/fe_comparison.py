@@ -24,6 +24,7 @@ from dataclasses import dataclass
 import numpy as np
 
 from ..core.progress import Progress
+from ..core.results import build_result
 from ..core.stack import BendingState, Stack, Temperatures
 
 __all__ = ["TrustRow", "TrustFlag", "TrustReport", "trust_report", "dundurs_parameters", "TOLERANCE"]
@@ -157,27 +158,26 @@ def trust_report(
     compares on the finer one; ``distances`` [m] from the end where shear and peel are compared;
     ``width`` [m] (optional) lets the report judge the bending-state choice.
     """
-    from .fe import MeshOptions, check_strip_inputs, fe_check, refinement_study
+    from .fe import MeshOptions, check_strip_inputs, refine_strip, solve_strip
     from .interface import interface_stresses
-    from ..core.stack import evaluate
 
     state = BendingState.parse(state)
     compared = BendingState.WIDE if state is BendingState.PLATE else state
-    length, _, distances = check_strip_inputs(stack, temperatures, length, compared, distances)
+    mesh = MeshOptions() if mesh is None else mesh
+    length, _, distances = check_strip_inputs(stack, temperatures, length, compared, distances, mesh)
     if width is not None:
         from ..core.errors import check_range
 
         width = check_range("width", width, 0.0, 100.0, unit="m")
-    mesh = MeshOptions() if mesh is None else mesh
-    engine = evaluate(stack, temperatures, compared)
+    engine = build_result(stack, temperatures, compared, 0.0, 0.0, "free")
     interface = interface_stresses(stack, temperatures, length, compared, bonds, model)
     heights = np.array([p.parameters.height for p in interface.interfaces])
     if refine:
-        study = refinement_study(stack, temperatures, length, compared, mesh, 2, distances, heights, progress)
+        study = refine_strip(stack, temperatures, length, compared, mesh, 2, distances, heights, progress)
         fe = study.runs[-1]
     else:
         study = None
-        fe = fe_check(stack, temperatures, length, compared, mesh, distances, heights, progress)
+        fe = solve_strip(stack, temperatures, length, compared, mesh, distances, heights, progress)
     rows = _rows(engine, interface, fe, distances, length)
     flags = _flags(stack, temperatures, length, state, compared, engine, interface, study, rows, width)
     return TrustReport(
@@ -267,9 +267,7 @@ def _flags(stack, temperatures, length, state, compared, engine, interface, stud
             f"layer {i + 1} is much softer in shear than its neighbours but is not a bond layer: inside a composite "
             "part it is taken as perfectly bonded, which misplaces the shear transfer; name it a bond layer")))
     if state is BendingState.PLATE:
-        from ..core.stack import evaluate
-
-        plate = evaluate(stack, temperatures, BendingState.PLATE)
+        plate = build_result(stack, temperatures, BendingState.PLATE, 0.0, 0.0, "free")
         flags.append(TrustFlag("bending_state", "note", (
             "plate state: a 2-D model cannot bend in two directions, so the check compares the wide (plane-strain) "
             f"state; the plate curvature is {float(plate.curvature) / float(engine.curvature):.4g} times the "
@@ -312,10 +310,8 @@ def _flags(stack, temperatures, length, state, compared, engine, interface, stud
 
 def _width_flags(stack, temperatures, state, width) -> list[TrustFlag]:
     """Bending-state advice from the width (layers.md sec. 2.2-2.3: S_T = b^2 kappa/H, guide values)."""
-    from ..core.stack import evaluate
-
     H = stack.total_thickness
-    kappa_plate = abs(float(evaluate(stack, temperatures, BendingState.PLATE).curvature))
+    kappa_plate = abs(float(build_result(stack, temperatures, BendingState.PLATE, 0.0, 0.0, "free").curvature))
     S = width**2 * kappa_plate / H
     flags = []
     if state is BendingState.NARROW and width > NARROW_WIDTH_RATIO * H:
