@@ -10,8 +10,9 @@ Inputs that scatter (keys of the ``tolerances`` mapping):
     length              every length of the element form (relative or absolute on the form's size)
     gap                 the contact gap (absolute [m or rad], or relative)
 
-A :class:`Tolerance` is a half-width with a distribution: "normal" reads the half-width as 3 standard
-deviations (common practice for a +/- production tolerance), "uniform" as the bound.
+Tolerances, sampling, first-order propagation and the ranking of contributors are the generic ones of
+:mod:`bilayer.core.scatter` (a :class:`Tolerance` is a half-width, read as 3 sigma for "normal"); this
+module adds what is particular to a set point.
 
 Set point of one sample: the temperature T where the curvature change of the strip equals the one the
 form needs to close the gap, dkappa(T) = dkappa_req. A form scaled in length by lambda needs
@@ -27,7 +28,6 @@ Monte Carlo, by the squared correlation of each input with the set point).
 """
 from __future__ import annotations
 
-import math
 import time
 from dataclasses import dataclass
 from typing import Mapping
@@ -36,48 +36,14 @@ import numpy as np
 
 from ..core import laminate
 from ..core.progress import Progress
-from ..core.errors import InputError, check_range
+from ..core.errors import InputError
+from ..core.scatter import Tolerance, first_order, monte_carlo, normal_percentiles, summary
 from .element import THERMOSTAT_CAUTIONS, ThermalElement, closing_temperature
 from .strip import DatasheetStrip, ThermostatStrip
 
 __all__ = ["Tolerance", "SetPointScatter", "monte_carlo_set_point", "first_order_set_point", "tolerance_keys"]
 
-PERCENTILES = (0.135, 2.275, 15.865, 50.0, 84.135, 97.725, 99.865)
-"""Percentiles reported: the normal -3, -2, -1, 0, +1, +2, +3 sigma levels."""
-
 _NEWTON_STEPS = 30
-
-
-@dataclass(frozen=True)
-class Tolerance:
-    """A +/- ``half_width`` on an input; ``relative`` (fraction of the nominal) or absolute (SI units).
-
-    ``distribution``: "normal" (half-width = 3 sigma, common practice) or "uniform" (bound).
-    """
-
-    half_width: float
-    relative: bool = True
-    distribution: str = "normal"
-
-    def __post_init__(self):
-        object.__setattr__(self, "half_width", check_range("tolerance.half_width", self.half_width, 0.0, 1e3, low_inclusive=True))
-        if self.relative and self.half_width >= 1.0:
-            raise InputError("tolerance.half_width", self.half_width, "a relative tolerance below 1 (100 %)")
-        if self.distribution not in ("normal", "uniform"):
-            raise InputError("tolerance.distribution", self.distribution, "'normal' or 'uniform'")
-
-    @property
-    def sigma(self) -> float:
-        """Standard deviation of the deviation (same unit as ``half_width``)."""
-        return self.half_width / 3.0 if self.distribution == "normal" else self.half_width / math.sqrt(3.0)
-
-    def sample(self, rng: np.random.Generator, size: int) -> np.ndarray:
-        if self.distribution == "normal":
-            return rng.normal(0.0, self.sigma, size)
-        return rng.uniform(-self.half_width, self.half_width, size)
-
-    def to_dict(self) -> dict:
-        return {"half_width": self.half_width, "relative": self.relative, "distribution": self.distribution}
 
 
 def tolerance_keys(element: ThermalElement) -> tuple[str, ...]:
@@ -254,13 +220,6 @@ def _chunk_set_points(problem: _Problem, tolerances: dict, draws: dict, size: in
     return _solve_temperature(strip, weights, cte, required, start)
 
 
-def _summary(values: np.ndarray) -> tuple[float, float, dict]:
-    mean = float(np.mean(values))
-    std = float(np.std(values, ddof=1)) if values.size > 1 else 0.0
-    pct = np.percentile(values, PERCENTILES)
-    return mean, std, {p: float(v) for p, v in zip(PERCENTILES, pct)}
-
-
 def monte_carlo_set_point(
     element: ThermalElement, gap: float, tolerances: Mapping[str, Tolerance], samples: int = 1_000_000,
     side: str = "auto", seed: int | None = 0, chunk: int = 250_000,
@@ -271,44 +230,20 @@ def monte_carlo_set_point(
     chunk, input by input in the order of ``tolerances``."""
     start_time = time.perf_counter()
     tolerances = _check_tolerances(element, tolerances)
-    samples = int(check_range("samples", samples, 1, 1e9, high_inclusive=True, low_inclusive=True))
-    chunk = int(check_range("chunk", chunk, 1, 1e8, low_inclusive=True, high_inclusive=True))
     problem = _Problem(element, gap, side, search)
-    rng = np.random.default_rng(seed)
-    keys = list(tolerances)
-    out = np.empty(samples)
-    sums = np.zeros((len(keys), 3))  # sum x, sum x^2, sum x*y per input (y centred on the nominal)
-    done = 0
-    while done < samples:
-        size = min(chunk, samples - done)
-        draws = {key: tolerances[key].sample(rng, size) for key in keys}
-        values = _chunk_set_points(problem, tolerances, draws, size)
-        out[done:done + size] = values
-        y = values - problem.set_point.temperature
-        for k, key in enumerate(keys):
-            x = draws[key]
-            sums[k] += (x.sum(), (x * x).sum(), (x * y).sum())
-        done += size
-        if progress is not None:
-            progress(done / samples, f"{done}/{samples} samples")
+    nominal = problem.set_point.temperature
+    run = monte_carlo(lambda draws, size: {"set point": _chunk_set_points(problem, tolerances, draws, size)},
+                      tolerances, {"set point": nominal}, samples, seed, chunk, progress)
+    out = run.values["set point"]
     good = np.isfinite(out)
-    failed = int(samples - good.sum())
-    values = out[good]
-    mean, std, pct = _summary(values)
-    y = values - problem.set_point.temperature
-    y_mean, y_var = float(y.mean()), float(y.var())
-    shares = []
-    for k, key in enumerate(keys):
-        x_mean = sums[k, 0] / samples
-        x_var = sums[k, 1] / samples - x_mean**2
-        cov = sums[k, 2] / samples - x_mean * y_mean
-        shares.append((key, float(cov * cov / (x_var * y_var)) if x_var > 0 and y_var > 0 else 0.0))
-    shares.sort(key=lambda item: -item[1])
+    failed = int(run.samples - good.sum())
+    mean, std, pct = summary(out[good])
+    shares = run.shares["set point"]
     warnings = problem.set_point.warnings
     if failed:
         warnings += (f"{failed} samples gave no finite set point and were left out",)
     return SetPointScatter(
-        "monte carlo", problem.set_point.temperature, mean, std, pct, tuple(shares), {}, samples, failed,
+        "monte carlo", nominal, mean, std, pct, shares, {}, run.samples, failed,
         time.perf_counter() - start_time, tolerances, element.strip.source, warnings, _ASSUMPTIONS,
         values=out if keep_values else None,
     )
@@ -371,7 +306,7 @@ def first_order_set_point(
             derivative[f"modulus_{i + 1}"] = g[n + i]
             derivative[f"cte_{i + 1}"] = g[2 * n + i]
         derivative["thickness"] = float(sum(g[:n]))
-    sens, variance = {}, {}
+    sens = {}
     for key, tol in tolerances.items():
         dT_dp = -derivative[key] / rate
         if key == "length" and not tol.relative:
@@ -379,13 +314,8 @@ def first_order_set_point(
         if key == "gap" and tol.relative:
             dT_dp *= problem.gap
         sens[key] = dT_dp
-        variance[key] = (dT_dp * tol.sigma) ** 2
-    total = sum(variance.values())
-    std = math.sqrt(total)
-    ranked = tuple(sorted(((k, v / total if total > 0 else 0.0) for k, v in variance.items()), key=lambda kv: -kv[1]))
-    from statistics import NormalDist
-
-    pct = {p: T_set + std * NormalDist().inv_cdf(p / 100.0) for p in PERCENTILES}
+    std, ranked = first_order(sens, tolerances)
+    pct = normal_percentiles(T_set, std)
     return SetPointScatter(
         "first order", T_set, T_set, std, pct, ranked, sens, 0, 0, time.perf_counter() - start_time,
         tolerances, strip.source, problem.set_point.warnings,
