@@ -57,7 +57,7 @@ _MATERIAL_KEYS = {
     "strength": "stress",
 }
 _TEMPERATURE_KEYS = ("glass_transition", "solidus")
-_TEXT_KEYS = ("name", "category", "strength_kind", "notes")
+_TEXT_KEYS = ("name", "category", "composition", "strength_kind", "notes")
 _CITATION = re.compile(r"\[([A-Za-z0-9_\-]+)\]")
 
 
@@ -388,7 +388,7 @@ class MaterialLibrary(Mapping[str, Material]):
 def material_to_table(material: Material) -> dict:
     """The file-format table of a material (SI numbers, temperatures in kelvin); inverse of reading."""
     table: dict = {"name": material.name}
-    for key in ("category", "strength_kind", "notes"):
+    for key in ("category", "composition", "strength_kind", "notes"):
         if getattr(material, key):
             table[key] = getattr(material, key)
     table["youngs_modulus"] = material.youngs_modulus

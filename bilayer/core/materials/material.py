@@ -54,7 +54,8 @@ class Material:
     constant coefficient [1/K]), ``density`` [kg/m^3], ``strength`` [Pa] with ``strength_kind``
     saying which (yield, tensile, flexural...), ``temperature_range`` (low, high) [K] where the data
     are meant to be used, ``glass_transition`` and ``solidus`` [K], ``sources`` naming where each
-    value comes from (field name -> citation text).
+    value comes from (field name -> citation text), ``composition`` the nominal composition of an alloy
+    in the usual notation ("Sn-3.0Ag-0.5Cu"; the solder job picks its life law from it).
 
     Hard limits (InputError): 0 < E <= 1.25e12 Pa, -1 < nu < 0.5 (stability of an isotropic solid),
     |alpha| < 1e-3 /K, 0 < density <= 23000 kg/m^3, strength > 0. Legal but suspicious values
@@ -79,12 +80,13 @@ class Material:
     key: str = ""
     sources: Mapping[str, str] = field(default_factory=dict, hash=False)
     notes: str = ""
+    composition: str = ""
 
     def __post_init__(self):
         if not isinstance(self.name, str) or not self.name.strip():
             raise InputError("name", self.name, "a non-empty text")
         label = self.name
-        for text_field in ("strength_kind", "category", "key", "notes"):
+        for text_field in ("strength_kind", "category", "key", "notes", "composition"):
             if not isinstance(getattr(self, text_field), str):
                 raise InputError(text_field, getattr(self, text_field), "a text", f"material {label!r}")
         set_ = object.__setattr__

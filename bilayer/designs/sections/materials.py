@@ -19,6 +19,7 @@ SECTION = SectionSpec(
         Field("name", TEXT, required=True, doc="material name shown in tables"),
         Field("key", TEXT, doc="material key when it differs from the table id"),
         Field("category", TEXT),
+        Field("composition", TEXT, doc="nominal alloy composition, e.g. 'Sn-3.0Ag-0.5Cu' (solders: selects the life law)"),
         Field("youngs_modulus", "modulus", required=True),
         Field("poisson_ratio", "dimensionless", required=True),
         Field("cte", "cte", required=True, doc="a constant or a table with kind = ... (docs/materials.md)"),
