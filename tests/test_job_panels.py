@@ -201,7 +201,7 @@ def solder():
 
 
 def test_solder_panel_is_the_modules_assessment(solder):
-    from bilayer.solder.joint import assess_solder_design
+    from bilayer.solder import assess_solder_design
 
     explorer, panel = solder
     direct = assess_solder_design(explorer.model.design)

@@ -192,11 +192,17 @@ def contributors_text(what: str, contributors: Sequence[tuple[str, float]], labe
     rest = sum(share for _, share in contributors if share < negligible)
     if not named:
         return f"No input moves the {what} noticeably."
-    words = [f"{name} ({100 * share:.0f} %)" for name, share in named]
+    words = [f"the {name} ({100 * share:.0f} %)" for name, share in named]
     if len(words) == 1:
-        text = f"The scatter of the {what} comes almost only from the {words[0]}"
+        text = f"The scatter of the {what} comes {'almost only ' if named[0][1] >= 0.9 else ''}from {words[0]}"
+    elif named[0][1] >= 0.5:
+        text = f"The scatter of the {what} comes mostly from {words[0]}, then " + _listing(words[1:])
     else:
-        text = f"The scatter of the {what} comes mostly from the {words[0]}, then " + ", ".join(words[1:])
+        text = f"The scatter of the {what} comes from " + _listing(words)
     if rest > 0:
         text += f"; the others add {100 * rest:.1g} %"
-    return text + " of the variance."
+    return text + " of its variance."
+
+
+def _listing(words: Sequence[str]) -> str:
+    return words[0] if len(words) == 1 else ", ".join(words[:-1]) + " and " + words[-1]

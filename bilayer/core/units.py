@@ -130,6 +130,12 @@ register_kind(Kind("flexural_rigidity", "N*m", "a flexural rigidity per unit wid
 register_kind(Kind("energy_per_area", "J/m^2", "an energy per unit area", ("0.5 J/m^2", "1 N/mm"),
                    {"si": (("J/m^2", _INF),), "us": (("lbf*in/in^2", _INF),)}))
 register_kind(Kind("angle", "rad", "an angle", ("15 deg", "0.2 rad"), _same("deg")))
+register_kind(Kind("stiffness", "N/m", "a stiffness (force per deflection)", ("50 N/mm", "300 lbf/in"),
+                   {"si": (("N/mm", _INF),), "us": (("lbf/in", _INF),)}))
+register_kind(Kind("area", "m^2", "an area", ("0.1 mm^2", "0.0002 in^2"),
+                   {"si": (("mm^2", _INF),), "us": (("in^2", _INF),)}))
+register_kind(Kind("energy_density", "J/m^3", "an energy per unit volume", ("0.2 MJ/m^3", "0.2 MPa", "30 psi"),
+                   {"si": (("MJ/m^3", _INF),), "us": (("psi", _INF),)}))
 
 
 def kind_info(kind: str) -> Kind:

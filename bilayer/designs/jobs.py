@@ -15,7 +15,7 @@ from ..solder.job import JOB as SOLDER
 from ..strip.job import JOB as INTERFACE
 from ..thermostat.job import JOB as THERMOSTAT
 
-__all__ = ["JOBS", "cautions_for"]
+__all__ = ["JOBS", "cautions_for", "job_warnings"]
 
 JOBS: dict[str, Job] = {job.name: job for job in (INTERFACE, THERMOSTAT, SOLDER, ADHESIVE, FILM)}
 """Every job by the name of its design-file table."""
@@ -32,3 +32,20 @@ def cautions_for(design: Any) -> tuple[str, ...]:
         if job is not None:
             texts += [text for text in job.cautions if text not in texts]
     return tuple(texts)
+
+
+def job_warnings(design: Any) -> dict[str, tuple[str, ...]]:
+    """The warnings of each job section of ``design``, computed now by the job's assessment (a section the
+    job refuses gives its error as the one warning), keyed by section name in section order."""
+    from ..core.errors import BilayerError
+
+    out: dict[str, tuple[str, ...]] = {}
+    for name in design.sections:
+        job = JOBS.get(name)
+        if job is None:
+            continue
+        try:
+            out[name] = tuple(job.assess(design).warnings)
+        except BilayerError as error:
+            out[name] = (f"the job refuses this design: {error}",)
+    return out

@@ -330,7 +330,7 @@ def report_html(record: DesignRecord, system: str = "si", check: CheckReport | N
     ``check`` defaults to :func:`bilayer.records.check_record` run now; ``cautions`` to today's
     cautions for the design (:func:`bilayer.designs.jobs.cautions_for`).
     """
-    from ..designs.jobs import cautions_for
+    from ..designs.jobs import cautions_for, job_warnings
     from ..core.units import UNIT_SYSTEMS
 
     if system not in UNIT_SYSTEMS:
@@ -383,6 +383,10 @@ def report_html(record: DesignRecord, system: str = "si", check: CheckReport | N
                  + "".join(f"<li>{escape(a)}</li>" for a in record.results.get("assumptions", [])) + "</ul>")
     parts.append("<h3>Warnings</h3>" + ("<ul class='warnings'>" + "".join(f"<li>{escape(w)}</li>" for w in warnings_list)
                                         + "</ul>" if warnings_list else "<p>None.</p>"))
+    for section, texts in job_warnings(design).items():
+        parts.append(f"<h3>Warnings of the [{escape(section)}] job (computed from the design now)</h3>"
+                     + ("<ul class='warnings'>" + "".join(f"<li>{escape(w)}</li>" for w in texts) + "</ul>"
+                        if texts else "<p>None.</p>"))
     parts.append("<h2 id='materials'>Material data and sources</h2><p>The copy kept in the record (what the "
                  "results were computed with).</p>" + _materials(record, system))
     parts.append("<h2 id='reviews'>Review log</h2>" + _reviews(record, check))

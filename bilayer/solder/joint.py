@@ -1,80 +1,50 @@
-"""Solder joints under temperature cycling: DNP shear strain, Engelmaier life, Weibull spread,
-Norris-Landzberg acceleration and test-profile presets.
+"""Solder joints under temperature cycling: the cycles, the joint check and its result.
 
-Equations (SI inside; the empirical Engelmaier exponent is written in its published units, degC and
-minutes, and converted here):
+One call, :func:`check_solder_joint`, screens a joint:
 
-    global shear strain      dgamma = F * L_D * |eps_board - eps_component| / h
-                             eps = integral of alpha dT over each part's own cycle (secant CTE x swing);
-                             L_D distance to the neutral point, h stand-off height, F non-ideality factor
-                             (Engelmaier, IEEE Trans. CHMT-6:232, 1983)
-    local mismatch           |eps_solder - eps_part| (not amplified by L_D/h)
-    Engelmaier-Wild life     N_f(50 %) = 1/2 (dgamma / (2 eps_f'))^(1/c),   eps_f' = 0.325 (eutectic Sn-Pb)
-                             c = -0.442 - 6e-4 T_SJ + 1.74e-2 ln(1 + 360/t_D)
-                             T_SJ mean cyclic joint temperature [degC], t_D half-cycle dwell [min]
-    Weibull spread           eta = N_50 / (ln 2)^(1/beta),   N(p) = eta (-ln(1 - p))^(1/beta)
-    Norris-Landzberg         AF = N_field / N_test
-                                = (dT_test/dT_field)^n (f_field/f_test)^m exp[(E_a/k)(1/Tmax_field - 1/Tmax_test)]
-                             (Norris & Landzberg, IBM J. Res. Dev. 13:266, 1969); f in cycles per day,
-                             Tmax absolute. Convention: life grows with cycling frequency (N ~ f^m, the
-                             1969 fit), so a slower field cycle gives a frequency factor below 1.
+    mismatch       eps_board - eps_component, each the integral of alpha dT over the part's own cycle
+    shear strain   from the joint geometry (:mod:`bilayer.solder.geometry`: leadless, area array, leads)
+    life           by the life law (:mod:`bilayer.solder.life_laws`), chosen by the solder's alloy family
+                   (:mod:`bilayer.solder.alloys`) unless the user names one; a law or acceleration set of
+                   another family is refused unless accepted, and then carried as a warning
+    spread         Weibull: eta = N_50 / (ln 2)^(1/beta),  N(p) = eta (-ln(1 - p))^(1/beta)
+    test cycle     Norris-Landzberg factor and the one chamber life (:mod:`bilayer.solder.acceleration`)
+    local mismatch |eps_solder - eps_part| beside it (not amplified by L_D/h)
+
+Defaults by the solder's family: tin-lead (and a joint whose alloy is not known, with a warning) takes
+Engelmaier-Wild and the 1969 Sn-Pb acceleration set; tin-silver-copper takes the 2012 SAC305
+acceleration set and has no built-in life law with constants that could be read in their source, so
+it needs the user's law (Coffin-Manson or energy constants of the alloy, or a named set flagged "from
+memory"); other lead-free alloys need the user's law and acceleration exponents.
 """
 from __future__ import annotations
 
-import math
 from dataclasses import dataclass, field
 from types import MappingProxyType
-from typing import TYPE_CHECKING, Mapping
+from typing import Mapping
 
 import numpy as np
 
 from ..core.cautions import CAUTIONS
 from ..core.errors import InputError, check_range, warn_suspicious
 from ..core.units import from_si, to_si
-
-if TYPE_CHECKING:  # pragma: no cover
-    from ..core.results import StackResult
-    from ..core.stack import Stack
+from .acceleration import NORRIS_LANDZBERG_CONVENTION, NorrisLandzbergSet, ChamberLife, chamber_life, norris_landzberg_factor
+from .acceleration import acceleration_set as named_acceleration_set
+from .alloys import OTHER_LEAD_FREE, TIN_SILVER_COPPER, AlloyFamily, alloy_family, family_check
+from .cautions import SOLDER_CAUTIONS
+from .geometry import FACTOR_GUIDANCE, JOINT_TYPES, AreaArrayJoint, LeadedJoint, LeadlessJoint
+from .life_laws import ENGELMAIER_WILD, LIFE_LAWS, CoffinManson, EnergyLaw, weibull_life, weibull_scale
 
 __all__ = [
-    "TIN_LEAD_DUCTILITY",
     "CycleProfile",
     "CYCLING_PRESETS",
     "preset_cycle",
-    "NorrisLandzbergSet",
-    "NORRIS_LANDZBERG_SETS",
-    "NORRIS_LANDZBERG_CONVENTION",
     "thermal_strain",
-    "global_shear_strain",
-    "engelmaier_exponent",
-    "engelmaier_median_life",
-    "weibull_scale",
-    "weibull_life",
-    "norris_landzberg_factor",
+    "default_life_law",
+    "default_acceleration_set",
     "SolderJointResult",
     "check_solder_joint",
-    "WarpageResult",
-    "assembly_warpage",
-    "SOLDER_CAUTIONS",
-    "SolderAssessment",
-    "assess_solder_design",
 ]
-
-TIN_LEAD_DUCTILITY = 0.325
-"""Engelmaier fatigue ductility coefficient eps_f' of eutectic Sn-Pb (2 eps_f' = 0.65)."""
-
-SOLDER_CAUTIONS = (
-    "Screening estimate only: the solder-joint life and acceleration factor are first-order empirical "
-    "estimates. Qualification by test per IPC-9701, the JEDEC temperature-cycling standards "
-    "(JESD22-A104) and the customer's requirements decides.",
-    "Model limits: the Engelmaier model covers creep-fatigue of the bulk solder of leadless joints; it "
-    "does not cover vibration, mechanical shock, brittle intermetallic fracture or pad cratering, nor "
-    "underfilled or compliant-lead joints without their own factors.",
-    "The life is the median of a wide distribution; early failures follow from the assumed Weibull shape. "
-    "Acceleration factors differ by up to about ten times between published parameter sets.",
-)
-"""Job-specific cautions; results carry them after the shared :data:`bilayer.core.cautions.CAUTIONS`."""
-
 
 # --------------------------------------------------------------------------------------------- cycles
 @dataclass(frozen=True)
@@ -184,182 +154,85 @@ def preset_cycle(name: str, dwell: float | None = None, cycles_per_day: float | 
     return matches[0].with_timing(dwell, cycles_per_day)
 
 
-# --------------------------------------------------------------------------------- Norris-Landzberg
-@dataclass(frozen=True)
-class NorrisLandzbergSet:
-    """Exponents of one Norris-Landzberg fit: n (temperature swing), m (frequency), E_a/k [K]."""
-
-    key: str
-    label: str
-    swing_exponent: float
-    frequency_exponent: float
-    activation_temperature: float
-    status: str
-    source: str
-
-    def to_dict(self) -> dict:
-        return {
-            "key": self.key,
-            "label": self.label,
-            "n": self.swing_exponent,
-            "m": self.frequency_exponent,
-            "activation_temperature": self.activation_temperature,
-            "status": self.status,
-            "source": self.source,
-        }
-
-
-NORRIS_LANDZBERG_SETS: Mapping[str, NorrisLandzbergSet] = MappingProxyType(
-    {
-        s.key: s
-        for s in (
-            NorrisLandzbergSet(
-                "snpb_1969",
-                "Sn-Pb (Norris & Landzberg 1969)",
-                1.9,
-                1.0 / 3.0,
-                1414.0,
-                "parameters confirmed only in secondary sources",
-                "Norris, K. C. & Landzberg, A. H., IBM J. Res. Dev. 13(3):266-271 (1969), high-lead C4 joints",
-            ),
-            NorrisLandzbergSet(
-                "sac_pan_2005",
-                "SAC (Pan et al. 2005)",
-                2.65,
-                0.136,
-                2185.0,
-                "from memory, not verified; the paper's time term may be a dwell time, not a frequency",
-                "Pan, N. et al., SMTA International (2005)",
-            ),
-            NorrisLandzbergSet(
-                "sac305_2012",
-                "SAC305 (J. Electron. Packag. 2012)",
-                2.3,
-                0.3,
-                4560.0,
-                "secondary (public code comments), not the paper; E_a/k quoted as 4560-4640 K",
-                "Norris-Landzberg acceleration factors and Goldmann constants for SAC305 lead-free "
-                "electronics, J. Electron. Packag. (Sept. 2012)",
-            ),
-        )
-    }
-)
-
-NORRIS_LANDZBERG_CONVENTION = (
-    "AF = N_field / N_test (field cycles per test cycle) = (dT_test/dT_field)^n (f_field/f_test)^m "
-    "exp[(Ea/k)(1/Tmax_field - 1/Tmax_test)]; life taken to grow with cycling frequency (N ~ f^m, the "
-    "1969 fit), so a slower field cycle lowers AF. Some secondary sources invert the frequency term."
-)
-
-
-def _nl_set(parameters: "NorrisLandzbergSet | str") -> NorrisLandzbergSet:
-    if isinstance(parameters, NorrisLandzbergSet):
-        return parameters
-    if isinstance(parameters, str) and parameters in NORRIS_LANDZBERG_SETS:
-        return NORRIS_LANDZBERG_SETS[parameters]
-    raise InputError("acceleration parameters", parameters, "one of " + ", ".join(NORRIS_LANDZBERG_SETS))
-
-
-def norris_landzberg_factor(
-    test: CycleProfile, field: CycleProfile, parameters: "NorrisLandzbergSet | str" = "snpb_1969"
-) -> float:
-    """Acceleration factor AF = N_field / N_test between a test and a field cycle (convention above)."""
-    if not isinstance(test, CycleProfile) or not isinstance(field, CycleProfile):
-        raise InputError("cycles", (test, field), "two CycleProfile values (test, field)")
-    p = _nl_set(parameters)
-    return (
-        (test.swing / field.swing) ** p.swing_exponent
-        * (field.cycles_per_day / test.cycles_per_day) ** p.frequency_exponent
-        * math.exp(p.activation_temperature * (1.0 / field.high - 1.0 / test.high))
-    )
-
-
-# ------------------------------------------------------------------------------------ strain, life
-def thermal_strain(expansion, low: float, high: float) -> float:
-    """Free thermal strain from ``low`` to ``high`` [K] of a Material, a CTE model or a constant CTE [1/K]."""
+def thermal_strain(expansion, low, high):
+    """Free thermal strain from ``low`` to ``high`` [K] (vectorised) of a Material, a CTE model or a constant
+    CTE [1/K]."""
     cte = getattr(expansion, "cte", expansion)
     if hasattr(cte, "thermal_strain"):
-        return float(cte.thermal_strain(low, high))
-    alpha = check_range("cte", cte, -1e-3, 1e-3, unit="1/K")
-    return alpha * (high - low)
-
-
-def global_shear_strain(dnp, standoff, mismatch_strain, factor=1.0):
-    """Cyclic shear strain range of the joint, dgamma = F L_D |mismatch| / h (vectorised; SI)."""
-    dnp = np.asarray(dnp, float)
-    h = np.asarray(standoff, float)
-    eps = np.asarray(mismatch_strain, float)
-    F = np.asarray(factor, float)
-    for name, value in (("dnp", dnp), ("standoff", h), ("factor", F)):
-        if not np.all(np.isfinite(value)) or np.any(value <= 0):
-            raise InputError(name, value.tolist(), f"{name} > 0 (finite)")
-    if not np.all(np.isfinite(eps)):
-        raise InputError("mismatch_strain", eps.tolist(), "a finite strain")
-    out = F * dnp * np.abs(eps) / h
+        out = np.asarray(cte.thermal_strain(low, high), float)
+    else:
+        alpha = check_range("cte", cte, -1e-3, 1e-3, unit="1/K")
+        out = alpha * (np.asarray(high, float) - np.asarray(low, float))
     return float(out) if out.ndim == 0 else out
 
 
-def engelmaier_exponent(mean_temperature, dwell):
-    """Engelmaier fatigue ductility exponent c from the mean cyclic joint temperature [K] and dwell [s].
-
-    c = -0.442 - 6e-4 T_SJ + 1.74e-2 ln(1 + 360/t_D), T_SJ in degC, t_D in minutes (converted here).
-    """
-    T = np.asarray(mean_temperature, float)
-    t = np.asarray(dwell, float)
-    if not np.all(np.isfinite(T)) or np.any(T <= 0):
-        raise InputError("mean_temperature", T.tolist(), "an absolute temperature > 0 K")
-    if not np.all(np.isfinite(t)) or np.any(t <= 0):
-        raise InputError("dwell", t.tolist(), "a dwell time > 0 s")
-    c = -0.442 - 6e-4 * from_si(T, "temperature", "degC") + 1.74e-2 * np.log1p(360.0 / (t / 60.0))
-    return float(c) if c.ndim == 0 else c
-
-
-def engelmaier_median_life(shear_strain, mean_temperature, dwell, ductility: float = TIN_LEAD_DUCTILITY):
-    """Median cycles to failure N_f(50 %) = 1/2 (dgamma / (2 eps_f'))^(1/c) (vectorised)."""
-    gamma = np.asarray(shear_strain, float)
-    if not np.all(np.isfinite(gamma)) or np.any(gamma <= 0):
-        raise InputError("shear_strain", gamma.tolist(), "a cyclic shear strain range > 0")
-    eps_f = check_range("ductility", ductility, 0.0, 2.0)
-    c = np.asarray(engelmaier_exponent(mean_temperature, dwell))
-    if np.any(c >= 0):
-        raise InputError("fatigue exponent", c.tolist(), "c < 0 (the mean temperature and dwell are far outside "
-                         "the model's use)")
-    life = 0.5 * (gamma / (2.0 * eps_f)) ** (1.0 / c)
-    return float(life) if life.ndim == 0 else life
+def default_life_law(family: AlloyFamily) -> "CoffinManson | EnergyLaw":
+    """The built-in law for the joint's alloy family: Engelmaier-Wild for tin-lead (and, with a warning,
+    an alloy that is not known); a project error for lead-free alloys, which need the user's law."""
+    if family.key in (TIN_SILVER_COPPER, OTHER_LEAD_FREE):
+        raise InputError(
+            "life_law", "by_solder", f"a life law for {family.label} solder",
+            f"the solder is {family.label} ({family.basis}); no built-in life law for it has constants that "
+            "could be read in their source, and the tin-lead Engelmaier-Wild law does not apply. Give the "
+            "Coffin-Manson constants of your alloy (life_law = 'coffin_manson' with ductility and "
+            "fatigue_exponent), an energy law (life_law = 'energy', or 'syed_2004_sac' whose constants are "
+            "from memory), or, to use the tin-lead law anyway, life_law = 'engelmaier_wild' with "
+            "accept_other_alloy = true (every output then carries a warning)")
+    return ENGELMAIER_WILD
 
 
-def weibull_scale(median, shape: float):
-    """Weibull characteristic life eta = N_50 / (ln 2)^(1/beta)."""
-    beta = check_range("weibull_shape", shape, 0.0, 100.0)
-    return np.asarray(median, float) / math.log(2.0) ** (1.0 / beta)
+def default_acceleration_set(family: AlloyFamily) -> NorrisLandzbergSet:
+    """The acceleration set for the joint's alloy family (see the module)."""
+    from .acceleration import NORRIS_LANDZBERG_SETS
+
+    if family.key == TIN_SILVER_COPPER:
+        return NORRIS_LANDZBERG_SETS["sac305_2012"]
+    if family.key == OTHER_LEAD_FREE:
+        raise InputError(
+            "acceleration_set", "by_solder", f"Norris-Landzberg exponents for {family.label} solder",
+            "no built-in set is fitted on this alloy; give acceleration_n, acceleration_m and "
+            "acceleration_activation, or name a set with accept_other_alloy = true")
+    return NORRIS_LANDZBERG_SETS["snpb_1969"]
 
 
-def weibull_life(median, shape: float, fraction):
-    """Cycles by which the failed ``fraction`` (0..1) is reached: eta (-ln(1 - p))^(1/beta)."""
-    p = np.asarray(fraction, float)
-    if not np.all((p > 0) & (p < 1)):
-        raise InputError("failure fraction", p.tolist(), "0 < fraction < 1")
-    beta = check_range("weibull_shape", shape, 0.0, 100.0)
-    life = weibull_scale(median, beta) * (-np.log1p(-p)) ** (1.0 / beta)
-    return float(life) if np.ndim(life) == 0 else life
+def _law(life_law, family: AlloyFamily) -> "CoffinManson | EnergyLaw":
+    if life_law is None:
+        return default_life_law(family)
+    if isinstance(life_law, (CoffinManson, EnergyLaw)):
+        return life_law
+    if isinstance(life_law, str) and life_law in LIFE_LAWS:
+        return LIFE_LAWS[life_law]
+    raise InputError("life_law", life_law, "one of " + ", ".join(LIFE_LAWS)
+                     + ", or a CoffinManson / EnergyLaw with the user's constants")
+
+
+_MISSING = {"inelastic": "inelastic strain range", "energy": "inelastic energy density"}
+
+
+def _measure(law) -> str:
+    return "energy" if law.kind == "energy" else law.measure
 
 
 # --------------------------------------------------------------------------------------- job result
 @dataclass(frozen=True)
 class SolderJointResult:
-    """Solder-joint screening result: strains, Engelmaier life and spread, acceleration (SI)."""
+    """Solder-joint screening result: geometry, strains, the life law and its life and spread, the
+    acceleration to a test cycle with the one chamber life, guidance notes (SI)."""
 
-    dnp: float
-    standoff: float
+    joint: "LeadlessJoint | AreaArrayJoint | LeadedJoint"
     factor: float
+    factor_given: bool
     cycle: CycleProfile
     board_cycle: CycleProfile
     mismatch_strain: float
     shear_strain: float
     local_mismatch_component: float | None
     local_mismatch_board: float | None
-    fatigue_exponent: float
-    ductility: float
+    alloy: AlloyFamily
+    life_law: "CoffinManson | EnergyLaw"
+    law_input: float
+    law_input_origin: str
+    fatigue_exponent: float | None
     median_life: float
     weibull_shape: float
     weibull_scale: float
@@ -368,27 +241,62 @@ class SolderJointResult:
     test: CycleProfile | None
     acceleration_set: NorrisLandzbergSet | None
     acceleration_factor: float | None
+    test_law_input: float | None
     test_median_life: float | None
+    chamber: ChamberLife | None
+    notes: tuple[str, ...]
     warnings: tuple[str, ...]
     assumptions: tuple[str, ...]
     cautions: tuple[str, ...] = field(default=CAUTIONS + SOLDER_CAUTIONS)
 
     @property
-    def engelmaier_acceleration(self) -> float | None:
-        """N_50(field)/N_50(test) by Engelmaier on both cycles (beside the Norris-Landzberg value)."""
-        return None if self.test_median_life is None else self.median_life / self.test_median_life
+    def dnp(self) -> float:
+        return self.joint.dnp
+
+    @property
+    def standoff(self) -> float:
+        return self.joint.standoff
+
+    @property
+    def joint_height(self) -> float:
+        return self.joint.joint_height
+
+    @property
+    def ductility(self) -> float | None:
+        """eps_f' of a strain law (None for an energy law)."""
+        return self.life_law.ductility.value if self.life_law.kind == "strain" else None
+
+    @property
+    def law_input_name(self) -> str:
+        return self.life_law.input_name
+
+    def test_cycles_for(self, field_cycles: float) -> float:
+        """Test cycles equivalent to ``field_cycles`` by the Norris-Landzberg factor."""
+        if self.acceleration_factor is None:
+            raise InputError("test", None, "a test cycle given to check_solder_joint")
+        return check_range("field_cycles", field_cycles, 0.0) / self.acceleration_factor
 
     def to_dict(self) -> dict:
+        energy = self.life_law.kind == "energy"
         return {
+            "joint_type": self.joint.kind,
+            "geometry": self.joint.to_dict(),
             "dnp": self.dnp,
             "standoff": self.standoff,
+            "joint_height": self.joint_height,
             "factor": self.factor,
+            "factor_given": self.factor_given,
+            "factor_guidance": dict(zip(("low", "high", "source"), FACTOR_GUIDANCE[self.joint.kind])),
             "cycle": self.cycle.to_dict(),
             "board_cycle": self.board_cycle.to_dict(),
             "mismatch_strain": self.mismatch_strain,
             "shear_strain": self.shear_strain,
             "local_mismatch_component": self.local_mismatch_component,
             "local_mismatch_board": self.local_mismatch_board,
+            "alloy": self.alloy.to_dict(),
+            "life_law": self.life_law.to_dict(),
+            "law_input": {"name": self.law_input_name, "value": self.law_input, "origin": self.law_input_origin,
+                          "test_value": self.test_law_input, "unit": "J/m^3" if energy else "1"},
             "fatigue_exponent": self.fatigue_exponent,
             "ductility": self.ductility,
             "median_life": self.median_life,
@@ -401,18 +309,19 @@ class SolderJointResult:
             "acceleration_convention": NORRIS_LANDZBERG_CONVENTION,
             "acceleration_factor": self.acceleration_factor,
             "test_median_life": self.test_median_life,
-            "engelmaier_acceleration": self.engelmaier_acceleration,
+            "chamber_life": None if self.chamber is None else self.chamber.to_dict(),
+            "notes": list(self.notes),
             "warnings": list(self.warnings),
             "assumptions": list(self.assumptions),
             "cautions": list(self.cautions),
             "units": {
-                "dnp": "m", "standoff": "m", "factor": "1", "mismatch_strain": "1", "shear_strain": "1",
-                "local_mismatch_component": "1", "local_mismatch_board": "1", "fatigue_exponent": "1",
-                "ductility": "1", "median_life": "cycles", "weibull_scale": "cycles", "early_life": "cycles",
-                "test_median_life": "cycles", "acceleration_factor": "1", "cycle": "K, s, 1/day",
+                "dnp": "m", "standoff": "m", "joint_height": "m", "factor": "1", "mismatch_strain": "1",
+                "shear_strain": "1", "local_mismatch_component": "1", "local_mismatch_board": "1",
+                "fatigue_exponent": "1", "ductility": "1", "median_life": "cycles", "weibull_scale": "cycles",
+                "early_life": "cycles", "test_median_life": "cycles", "acceleration_factor": "1",
+                "cycle": "K, s, 1/day", "law_input": "1 (strain) or J/m^3 (energy)",
             },
         }
-
 
 def _material_warnings(label: str, expansion, cycle: CycleProfile) -> list[str]:
     messages = []
@@ -428,48 +337,58 @@ def _material_warnings(label: str, expansion, cycle: CycleProfile) -> list[str]:
     return messages
 
 
+
+
 def check_solder_joint(
-    dnp: float,
-    standoff: float,
+    joint: "LeadlessJoint | AreaArrayJoint | LeadedJoint",
     component,
     board,
     cycle: CycleProfile,
-    factor: float = 1.0,
+    factor: float | None = None,
     *,
     board_cycle: CycleProfile | None = None,
     solder=None,
-    ductility: float = TIN_LEAD_DUCTILITY,
+    life_law: "CoffinManson | EnergyLaw | str | None" = None,
+    accept_other_alloy: bool = False,
+    inelastic_strain_range: float | None = None,
+    energy_density: float | None = None,
+    test_inelastic_strain_range: float | None = None,
+    test_energy_density: float | None = None,
     weibull_shape: float = 4.0,
     early_fraction: float = 0.01,
     test: CycleProfile | str | None = None,
-    acceleration_set: "NorrisLandzbergSet | str" = "snpb_1969",
+    acceleration_set: "NorrisLandzbergSet | str | None" = None,
 ) -> SolderJointResult:
-    """Screen a leadless or area-array solder joint under temperature cycling.
+    """Screen a solder joint under temperature cycling (see the module).
 
-    ``component`` and ``board`` (and ``solder``) are Materials, CTE models or constant CTEs [1/K];
-    their strains are integrated over the cycle, i.e. secant CTEs. ``cycle`` is the joint's (and the
-    component's) temperature cycle; ``board_cycle`` the board's when it differs (power cycling).
-    ``dnp`` distance to the neutral point [m], ``standoff`` joint height [m], ``factor`` Engelmaier's
-    non-ideality factor F. ``test`` (a CycleProfile or a preset name) adds the Norris-Landzberg
-    acceleration factor with ``acceleration_set`` and the Engelmaier life under the test cycle.
+    ``joint`` its geometry (:mod:`bilayer.solder.geometry`); ``component`` and ``board`` (and ``solder``)
+    Materials, CTE models or constant CTEs [1/K], their strains integrated over the cycle (secant CTEs).
+    ``cycle`` is the joint's (and the component's) cycle, ``board_cycle`` the board's when it differs
+    (power cycling). ``factor`` is Engelmaier's F (None: 1, with the typical range for the joint type
+    in the notes). ``life_law``: None (chosen by the solder's family), a key of
+    :data:`~bilayer.solder.life_laws.LIFE_LAWS`, or a law with the user's constants; a law or
+    ``acceleration_set`` fitted on another alloy family raises :class:`InputError` unless
+    ``accept_other_alloy``. Inputs of laws that do not use the DNP strain: ``inelastic_strain_range`` [-]
+    or ``energy_density`` [J/m^3] per field cycle (from the user or a history calculation), and the
+    same for the test cycle (optional). ``test`` (a CycleProfile or a preset name) adds the
+    acceleration factor and the chamber life.
     """
+    if not isinstance(joint, (LeadlessJoint, AreaArrayJoint, LeadedJoint)):
+        raise InputError("joint", joint, "a LeadlessJoint, AreaArrayJoint or LeadedJoint (bilayer.solder.geometry)")
     if not isinstance(cycle, CycleProfile):
         raise InputError("cycle", cycle, "a CycleProfile")
     board_cycle = cycle if board_cycle is None else board_cycle
     if not isinstance(board_cycle, CycleProfile):
         raise InputError("board_cycle", board_cycle, "a CycleProfile")
-    dnp = check_range("dnp", dnp, 0.0, 1.0, unit="m")
-    standoff = check_range("standoff", standoff, 0.0, 0.1, unit="m")
-    factor = check_range("factor", factor, 0.0, 10.0)
+    factor_given = factor is not None
+    factor = 1.0 if factor is None else check_range("factor", factor, 0.0, 10.0)
     shape = check_range("weibull_shape", weibull_shape, 0.0, 100.0)
     fraction = check_range("early_fraction", early_fraction, 0.0, 1.0)
-    eps_f = check_range("ductility", ductility, 0.0, 2.0)
     if not 0.5 <= factor <= 1.5:
         warn_suspicious("factor", factor, "Engelmaier's non-ideality factor is usually 0.7 to 1.5 (from memory)")
-    if not 1e-5 <= standoff <= 2e-3:
-        warn_suspicious("standoff", standoff, "solder joint heights are usually 10 um to 2 mm")
 
     warnings: list[str] = []
+    notes: list[str] = []
     eps_component = thermal_strain(component, cycle.low, cycle.high)
     eps_board = thermal_strain(board, board_cycle.low, board_cycle.high)
     warnings += _material_warnings("component", component, cycle)
@@ -477,8 +396,8 @@ def check_solder_joint(
     mismatch = eps_board - eps_component
     if mismatch == 0.0:
         raise InputError("component/board CTE", (component, board), "different expansions over the cycle",
-                         "with no global mismatch the DNP strain and Engelmaier life are undefined")
-    gamma = float(global_shear_strain(dnp, standoff, mismatch, factor))
+                         "with no global mismatch the DNP strain and the life are undefined")
+    gamma = float(joint.shear_strain(mismatch, factor))
     local_component = local_board = None
     if solder is not None:
         eps_solder = thermal_strain(solder, cycle.low, cycle.high)
@@ -488,259 +407,112 @@ def check_solder_joint(
         if solidus is not None and max(cycle.high, board_cycle.high) >= solidus:
             raise InputError("cycle.high", cycle.high, f"below the solder solidus {solidus:g} K")
         if max(local_component, local_board) > gamma:
-            warnings.append(
-                "local (solder to part) mismatch strain exceeds the global DNP shear strain: the DNP model "
-                "alone does not describe this joint"
-            )
-    c = float(engelmaier_exponent(cycle.mean, cycle.dwell))
-    median = float(engelmaier_median_life(gamma, cycle.mean, cycle.dwell, eps_f))
-    if gamma >= 2.0 * eps_f:
-        warnings.append("shear strain range reaches 2 eps_f': beyond the low-cycle range of the model")
-    if cycle.dwell < 60.0:
-        warnings.append("dwell under 1 min: the dwell term is not meant for very short dwells or high rates")
-    if abs(eps_f - TIN_LEAD_DUCTILITY) > 1e-12:
-        warnings.append(
-            f"ductility coefficient {eps_f:g} differs from the Sn-Pb value 0.325 while the exponent c keeps "
-            "the Sn-Pb coefficients"
-        )
+            warnings.append("local (solder to part) mismatch strain exceeds the global DNP shear strain: the DNP "
+                            "model alone does not describe this joint")
 
-    nl_set = af = test_life = None
+    family = alloy_family(solder)
+    law = _law(life_law, family)
+    accepted = family_check("life law", "life_law", law.key, law.family, family, accept_other_alloy)
+    if accepted:
+        warnings.append(accepted)
+    remembered = [name for name, constant in law.constants().items() if constant.status == "from memory"]
+    if remembered:
+        warnings.append(f"the {law.name} constants {', '.join(remembered)} are from memory (source named, not "
+                        f"read): check them against {law.source} before relying on the life")
+    measure = _measure(law)
+    given = {"shear": gamma, "inelastic": inelastic_strain_range, "energy": energy_density}[measure]
+    if given is None:
+        raise InputError("energy_density" if measure == "energy" else "inelastic_strain_range", None,
+                         f"the {_MISSING[measure]} per field cycle", f"the {law.name} law uses it"
+                         + (" (from the user, or a history calculation of the solder layer)" if measure == "energy"
+                            else ""))
+    value = check_range(law.input_name, given, 0.0, 1e12 if measure == "energy" else 10.0)
+    origin = {"shear": "the DNP shear strain above", "inelastic": "given", "energy": "given"}[measure]
+    median = float(law.life(value, cycle.mean, cycle.dwell))
+    exponent = float(law.exponent_at(cycle.mean, cycle.dwell)) if law.kind == "strain" else None
+    warnings += _range_warnings(law, value, "field")
+    if law.kind == "strain" and law.dwell_term is not None and cycle.dwell < 60.0:
+        warnings.append("dwell under 1 min: the dwell term is not meant for very short dwells or high rates")
+    notes += _factor_notes(joint, factor, factor_given, law, mismatch, cycle)
+    notes += list(joint.notes)
+    if isinstance(joint, LeadedJoint) and joint.capped(mismatch):
+        notes.append("the lead is stiff enough that the lead form exceeds the stiff-joint strain: the stiff-joint "
+                     "strain F L_D dalpha dT / h is used")
+
+    nl_set = af = test_value = test_life = chamber = None
     if test is not None:
         test = preset_cycle(test) if isinstance(test, str) else test
         if not isinstance(test, CycleProfile):
             raise InputError("test", test, "a CycleProfile or a preset name such as '-40/+125'")
         warnings += [f"test cycle, {text}" for text in _material_warnings("component", component, test)
                      + _material_warnings("board", board, test)]
-        nl_set = _nl_set(acceleration_set)
+        nl_set = default_acceleration_set(family) if acceleration_set is None else named_acceleration_set(acceleration_set)
+        accepted = family_check("acceleration set", "acceleration_set", nl_set.key, nl_set.family, family,
+                                accept_other_alloy)
+        if accepted:
+            warnings.append(accepted)
         af = norris_landzberg_factor(test, cycle, nl_set)
-        test_gamma = float(global_shear_strain(
-            dnp, standoff,
-            thermal_strain(board, test.low, test.high) - thermal_strain(component, test.low, test.high),
-            factor,
-        ))
-        test_life = float(engelmaier_median_life(test_gamma, test.mean, test.dwell, eps_f))
-        if not nl_set.key.startswith("snpb") and abs(eps_f - TIN_LEAD_DUCTILITY) < 1e-12:
-            warnings.append(
-                "lead-free acceleration set with Sn-Pb Engelmaier constants: the two lives are not comparable"
-            )
+        test_gamma = float(joint.shear_strain(
+            thermal_strain(board, test.low, test.high) - thermal_strain(component, test.low, test.high), factor))
+        test_value = {"shear": test_gamma, "inelastic": test_inelastic_strain_range,
+                      "energy": test_energy_density}[measure]
+        if test_value is not None:
+            test_value = check_range(f"test {law.input_name}", test_value, 0.0, 1e12 if measure == "energy" else 10.0)
+            test_life = float(law.life(test_value, test.mean, test.dwell))
+            warnings += _range_warnings(law, test_value, "test")
+        chamber = chamber_life(median, af, test_life, law.name, nl_set.label, _MISSING.get(measure, ""))
 
-    assumptions = (
-        "leadless (stiff) joints; elastic, plastic and creep behaviour lumped into the factor F",
-        "component and board expand freely in-plane about the neutral point (no board bending)",
-        "Engelmaier-Wild coefficients for eutectic or near-eutectic Sn-Pb",
+    assumptions = [
+        f"joint: {JOINT_TYPES[joint.kind]}; component and board expand freely in-plane about the neutral point "
+        "(no board bending)",
+        f"solder alloy: {family.label} ({family.basis})",
+        f"life law: {law.name} ({law.describe()})",
         f"Weibull shape beta = {shape:g} assumed for the spread (beta = 4 is a typical Sn-Pb value, from memory)",
         "CTEs integrated over each part's own cycle (secant values)",
-    )
+    ]
+    if measure == "shear":
+        assumptions.insert(1, "elastic, plastic and creep behaviour of the joint lumped into the factor F")
+    if not law.family:
+        assumptions.append(f"the law's constants are the user's, taken as fitted on this joint's alloy "
+                           f"({family.label})")
+    if law.kind == "energy":
+        assumptions.append(f"energy density defined as: {law.energy_definition}")
     return SolderJointResult(
-        dnp=dnp,
-        standoff=standoff,
-        factor=factor,
-        cycle=cycle,
-        board_cycle=board_cycle,
-        mismatch_strain=abs(mismatch),
-        shear_strain=gamma,
-        local_mismatch_component=local_component,
-        local_mismatch_board=local_board,
-        fatigue_exponent=c,
-        ductility=eps_f,
-        median_life=median,
-        weibull_shape=shape,
-        weibull_scale=float(weibull_scale(median, shape)),
-        early_fraction=fraction,
-        early_life=float(weibull_life(median, shape, fraction)),
-        test=test,
-        acceleration_set=nl_set,
-        acceleration_factor=af,
-        test_median_life=test_life,
-        warnings=tuple(warnings),
-        assumptions=assumptions,
+        joint=joint, factor=factor, factor_given=factor_given, cycle=cycle, board_cycle=board_cycle,
+        mismatch_strain=abs(mismatch), shear_strain=gamma, local_mismatch_component=local_component,
+        local_mismatch_board=local_board, alloy=family, life_law=law, law_input=value, law_input_origin=origin,
+        fatigue_exponent=exponent, median_life=median, weibull_shape=shape,
+        weibull_scale=float(weibull_scale(median, shape)), early_fraction=fraction,
+        early_life=float(weibull_life(median, shape, fraction)), test=test, acceleration_set=nl_set,
+        acceleration_factor=af, test_law_input=test_value, test_median_life=test_life, chamber=chamber,
+        notes=tuple(notes), warnings=tuple(warnings), assumptions=tuple(assumptions),
     )
 
 
-# ----------------------------------------------------------------------------------------- warpage
-@dataclass(frozen=True, eq=False)
-class WarpageResult:
-    """Warpage of a component-on-board or die-on-substrate stack from the engine (SI)."""
-
-    stack_result: "StackResult"
-    stress_free_temperature: float
-    stress_free_basis: str
-    length: float
-    width: float
-    curvature: "float | np.ndarray"
-    bow_length: "float | np.ndarray"
-    bow_width: "float | np.ndarray"
-    bow_diagonal: "float | np.ndarray"
-    warnings: tuple[str, ...]
-    assumptions: tuple[str, ...]
-    cautions: tuple[str, ...] = field(default=CAUTIONS + SOLDER_CAUTIONS)
-
-    def to_dict(self) -> dict:
-        from ..core.jsonable import plain
-
-        return {
-            "stress_free_temperature": self.stress_free_temperature,
-            "stress_free_basis": self.stress_free_basis,
-            "length": self.length,
-            "width": self.width,
-            "curvature": plain(self.curvature),
-            "bow_length": plain(self.bow_length),
-            "bow_width": plain(self.bow_width),
-            "bow_diagonal": plain(self.bow_diagonal),
-            "sign_convention": "kappa > 0 and bow > 0: top face convex, centre high with the top layer up",
-            "stack": self.stack_result.to_dict(),
-            "warnings": list(self.warnings),
-            "assumptions": list(self.assumptions),
-            "cautions": list(self.cautions),
-            "units": {
-                "stress_free_temperature": "K", "length": "m", "width": "m", "curvature": "1/m",
-                "bow_length": "m", "bow_width": "m", "bow_diagonal": "m",
-            },
-        }
+def _range_warnings(law, value: float, which: str) -> list[str]:
+    """The note the issue asks for: a strain beyond twice the ductility coefficient is outside the law."""
+    if law.kind != "strain" or value < law.range_limit:
+        return []
+    return [f"{which} cycle: the {law.input_name} {value:.3g} exceeds twice the ductility coefficient "
+            f"(2 eps_f' = {law.range_limit:g}): the law is outside its range (it gives under half a cycle), so "
+            "the life is not meaningful; the joint fails by overstress or in very few cycles"]
 
 
-def assembly_warpage(
-    stack: "Stack",
-    operating,
-    length: float,
-    width: float | None = None,
-    *,
-    solder=None,
-    stress_free_temperature: float | None = None,
-    state: str = "plate",
-) -> WarpageResult:
-    """Warpage of a soldered assembly (board or base at the bottom, component or die on top).
-
-    The stress-free temperature is the solder's solidus (``solder`` a Material with ``solidus``) or an
-    effective value the user sets (``stress_free_temperature`` [K], usually lower because the solder
-    creeps during cooling). The engine solves the stack in the equal-biaxial ``plate`` state by default;
-    bows over the length, width and diagonal [m] follow exactly from the curvature.
-    """
-    from ..core.sagitta import bow_from_curvature
-    from ..core.stack import Temperatures, evaluate
-
-    length = check_range("length", length, 0.0, 10.0, unit="m")
-    width = length if width is None else check_range("width", width, 0.0, 10.0, unit="m")
-    solidus = None
-    if solder is not None:
-        solidus = getattr(solder, "solidus", None)
-        if solidus is None:
-            raise InputError("solder", getattr(solder, "name", solder), "a solder material with a solidus")
-    warnings = []
-    if stress_free_temperature is not None:
-        t0 = check_range("stress_free_temperature", stress_free_temperature, 0.0, 5000.0, unit="K")
-        basis = "effective value set by the user"
-        if solidus is not None and t0 > solidus:
-            warn_suspicious("stress_free_temperature", t0, f"above the solder solidus {solidus:g} K")
-    elif solidus is not None:
-        t0 = float(solidus)
-        basis = f"solidus of {getattr(solder, 'name', 'the solder')}"
-        warnings.append(
-            "stress-free temperature at the solidus: creep during cooling makes the effective value lower, "
-            "so the warpage and stresses are upper bounds"
-        )
+def _factor_notes(joint, factor: float, given: bool, law, mismatch: float, cycle: CycleProfile) -> list[str]:
+    """Guidance on F: the typical range for the joint type with its source, and what it does to the life."""
+    low, high, source = FACTOR_GUIDANCE[joint.kind]
+    typical = f"about {low:g}" if low == high else f"{low:g} to {high:g}"
+    kind = JOINT_TYPES[joint.kind]
+    if _measure(law) != "shear":
+        return [f"F = {factor:g} scales the DNP shear strain shown; the {law.name} law does not use it"]
+    if not given:
+        text = f"F not given: F = 1 is used. Typical F for a {kind}: {typical} ({source})"
+    elif low - 1e-12 <= factor <= high + 1e-12:
+        text = f"F = {factor:g}, within the typical {typical} for a {kind} ({source})"
     else:
-        raise InputError(
-            "stress_free_temperature", None, "a temperature [K], or a solder material with a solidus"
-        )
-    result = evaluate(stack, Temperatures(t0, operating), state)
-    kappa = result.curvature
-    diagonal = math.hypot(length, width)
-    warnings.extend(result.warnings)
-    return WarpageResult(
-        stack_result=result,
-        stress_free_temperature=t0,
-        stress_free_basis=basis,
-        length=length,
-        width=width,
-        curvature=kappa,
-        bow_length=bow_from_curvature(kappa, length),
-        bow_width=bow_from_curvature(kappa, width),
-        bow_diagonal=bow_from_curvature(kappa, diagonal),
-        warnings=tuple(warnings),
-        assumptions=tuple(result.assumptions) + (
-            "uniform spherical curvature over the outline (free plate); bow is the exact sagitta over each span",
-            "elastic layers: yielding or creep of solder and copper lowers the real warpage",
-        ),
-    )
-
-
-# ---------------------------------------------------------------------------------- design files
-@dataclass(frozen=True, eq=False)
-class SolderAssessment:
-    """Joint screening and (when an outline is given) assembly warpage of one design."""
-
-    joint: SolderJointResult
-    warpage: WarpageResult | None
-
-    @property
-    def warnings(self) -> tuple[str, ...]:
-        return self.joint.warnings + (() if self.warpage is None else self.warpage.warnings)
-
-    @property
-    def cautions(self) -> tuple[str, ...]:
-        return self.joint.cautions
-
-    def to_dict(self) -> dict:
-        return {
-            "solder_joint": self.joint.to_dict(),
-            "warpage": None if self.warpage is None else self.warpage.to_dict(),
-        }
-
-
-def _design_material(design, name: str):
-    """A material named in a section: a layer material with that key or name, else the library."""
-    from ..core.materials import get_material
-
-    for layer in design.stack.layers:
-        if name in (layer.material.key, layer.material.name):
-            return layer.material
-    return get_material(name)
-
-
-def _layer_number(design, values, key: str, default: int) -> int:
-    number = values.get(key, default)
-    if not 1 <= number <= design.stack.n_layers:
-        raise InputError(f"solder_joint.{key}", number, f"a layer number 1 to {design.stack.n_layers}")
-    return number
-
-
-def assess_solder_design(design) -> SolderAssessment:
-    """Run the ``[solder_joint]`` section of a design: joint screening and warpage.
-
-    The board and component CTEs come from the design's layers; the warpage uses the design's stack
-    and operating temperature(s), with the stress-free temperature from [conditions] (an effective
-    value) or the solder solidus (``stress_free_basis = "solidus"``).
-    """
-    if "solder_joint" not in design.sections:
-        raise InputError("design.sections", sorted(design.sections), "a [solder_joint] section")
-    values = dict(design.sections["solder_joint"])
-    board = design.stack[_layer_number(design, values, "board_layer", 1) - 1].material
-    component = design.stack[_layer_number(design, values, "component_layer", design.stack.n_layers) - 1].material
-    solder_material = _design_material(design, values["solder_material"]) if "solder_material" in values else None
-    field_cycle = CycleProfile(values["cycle_low"], values["cycle_high"], values["dwell"],
-                               values["cycle_rate"] * 86400.0, "field cycle")
-    board_cycle = None
-    if "board_cycle_low" in values:
-        board_cycle = CycleProfile(values["board_cycle_low"], values["board_cycle_high"], values["dwell"],
-                                   values["cycle_rate"] * 86400.0, "board cycle")
-    test = None
-    if "test_cycle" in values:
-        rate = values.get("test_cycle_rate")
-        test = preset_cycle(values["test_cycle"], values.get("test_dwell"), None if rate is None else rate * 86400.0)
-    joint = check_solder_joint(
-        values["dnp"], values["standoff"], component, board, field_cycle, values.get("nonideality_factor", 1.0),
-        board_cycle=board_cycle, solder=solder_material, ductility=values.get("ductility", TIN_LEAD_DUCTILITY),
-        weibull_shape=values.get("weibull_shape", 4.0), early_fraction=values.get("early_fraction", 0.01),
-        test=test, acceleration_set=values.get("acceleration_set", "snpb_1969"),
-    )
-    warpage = None
-    if "outline_length" in values:
-        by_solidus = values.get("stress_free_basis", "conditions") == "solidus"
-        warpage = assembly_warpage(
-            design.stack, design.temperatures.operating, values["outline_length"], values.get("outline_width"),
-            solder=solder_material if by_solidus else None,
-            stress_free_temperature=None if by_solidus else design.temperatures.stress_free,
-            state=design.state.value,
-        )
-    return SolderAssessment(joint, warpage)
+        text = f"F = {factor:g} is outside the typical {typical} for a {kind} ({source})"
+    if low != high:
+        lives = [float(law.life(joint.shear_strain(mismatch, f), cycle.mean, cycle.dwell)) for f in (low, high)]
+        text += f"; across that range the median field life runs from {lives[1]:.4g} (F = {high:g}) to " \
+                f"{lives[0]:.4g} cycles (F = {low:g})"
+    return [text + "; a larger F means a larger strain and a shorter life"]
