@@ -29,6 +29,7 @@ from .progress import Progress
 __all__ = [
     "PERCENTILES",
     "Tolerance",
+    "ScatterSummary",
     "summary",
     "normal_percentiles",
     "rank_shares",
@@ -73,6 +74,30 @@ class Tolerance:
 
     def to_dict(self) -> dict:
         return {"half_width": self.half_width, "relative": self.relative, "distribution": self.distribution}
+
+
+@dataclass(frozen=True, eq=False)
+class ScatterSummary:
+    """Statistics of one result under tolerances: ``nominal``, ``mean`` and standard deviation ``std``,
+    ``percentiles`` (of :data:`PERCENTILES`), ``contributors`` (input, share of variance) from the largest
+    down, first-order ``sensitivities`` (empty for a Monte Carlo). Jobs extend it with their own fields."""
+
+    nominal: float
+    mean: float
+    std: float
+    percentiles: Mapping[float, float]
+    contributors: tuple[tuple[str, float], ...]
+    sensitivities: Mapping[str, float]
+
+    def summary_dict(self) -> dict:
+        return {
+            "nominal": self.nominal,
+            "mean": self.mean,
+            "std": self.std,
+            "percentiles": {f"{k:g}": v for k, v in self.percentiles.items()},
+            "contributors": [[name, share] for name, share in self.contributors],
+            "sensitivities": dict(self.sensitivities),
+        }
 
 
 def summary(values: np.ndarray) -> tuple[float, float, dict]:

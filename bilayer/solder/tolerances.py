@@ -30,7 +30,7 @@ import numpy as np
 
 from ..core.errors import InputError
 from ..core.progress import Progress
-from ..core.scatter import (Tolerance, contributors_text, first_order, monte_carlo, normal_percentiles,
+from ..core.scatter import (ScatterSummary, Tolerance, contributors_text, first_order, monte_carlo, normal_percentiles,
                             numeric_sensitivities, summary)
 from .acceleration import acceleration_factors
 from .joint import SolderJointResult, thermal_strain
@@ -63,26 +63,17 @@ class WarpageModel:
 
 
 @dataclass(frozen=True, eq=False)
-class ResultScatter:
-    """Scatter of one result: ``name`` (also the plain label), ``unit``, nominal, mean, standard deviation,
-    percentiles, ranked ``contributors`` (input, share of variance), first-order ``sensitivities`` (per
-    unit fraction for relative inputs, per K for temperatures) and ``text``, the contributors in words."""
+class ResultScatter(ScatterSummary):
+    """Scatter of one result (the statistics of :class:`ScatterSummary`; first-order ``sensitivities`` per
+    unit fraction for relative inputs, per K for temperatures), its ``name`` (also the plain label),
+    ``unit`` and ``text``, the contributors in words."""
 
     name: str
     unit: str
-    nominal: float
-    mean: float
-    std: float
-    percentiles: Mapping[float, float]
-    contributors: tuple[tuple[str, float], ...]
-    sensitivities: Mapping[str, float]
     text: str
 
     def to_dict(self) -> dict:
-        return {"name": self.name, "unit": self.unit, "nominal": self.nominal, "mean": self.mean, "std": self.std,
-                "percentiles": {f"{k:g}": v for k, v in self.percentiles.items()},
-                "contributors": [[name, share] for name, share in self.contributors],
-                "sensitivities": dict(self.sensitivities), "text": self.text}
+        return {"name": self.name, "unit": self.unit, **self.summary_dict(), "text": self.text}
 
 
 @dataclass(frozen=True, eq=False)
@@ -259,8 +250,8 @@ def joint_scatter(result: SolderJointResult, component, board, tolerances: Mappi
         slopes = numeric_sensitivities(model, tolerances)
         for name in model.names:
             std, ranked = first_order(slopes[name], tolerances)
-            results.append(ResultScatter(name, _UNITS.get(name, "m"), nominal[name], nominal[name], std,
-                                         normal_percentiles(nominal[name], std), ranked, slopes[name],
+            results.append(ResultScatter(nominal[name], nominal[name], std, normal_percentiles(nominal[name], std),
+                                         ranked, slopes[name], name, _UNITS.get(name, "m"),
                                          contributors_text(name, ranked, INPUT_LABELS)))
         samples = 0
         assumptions = _ASSUMPTIONS + ("linearised about the nominal design; percentiles from a normal distribution",)
@@ -272,7 +263,7 @@ def joint_scatter(result: SolderJointResult, component, board, tolerances: Mappi
             failed = max(failed, int(values.size - good.sum()))
             mean, std, pct = summary(values[good])
             ranked = run.shares[name]
-            results.append(ResultScatter(name, _UNITS.get(name, "m"), nominal[name], mean, std, pct, ranked, {},
+            results.append(ResultScatter(nominal[name], mean, std, pct, ranked, {}, name, _UNITS.get(name, "m"),
                                          contributors_text(name, ranked, INPUT_LABELS)))
         if failed:
             warnings.append(f"{failed} samples had the cycle's low temperature above its high one and were left out")

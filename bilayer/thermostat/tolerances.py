@@ -37,7 +37,7 @@ import numpy as np
 from ..core import laminate
 from ..core.progress import Progress
 from ..core.errors import InputError
-from ..core.scatter import Tolerance, first_order, monte_carlo, normal_percentiles, summary
+from ..core.scatter import ScatterSummary, Tolerance, first_order, monte_carlo, normal_percentiles, summary
 from .element import THERMOSTAT_CAUTIONS, ThermalElement, closing_temperature
 from .strip import DatasheetStrip, ThermostatStrip
 
@@ -56,8 +56,8 @@ def tolerance_keys(element: ThermalElement) -> tuple[str, ...]:
 
 
 @dataclass(frozen=True, eq=False)
-class SetPointScatter:
-    """Statistics of the set point [K] under tolerances.
+class SetPointScatter(ScatterSummary):
+    """Statistics of the set point [K] under tolerances (the fields of :class:`ScatterSummary`, then these).
 
     ``method`` "monte carlo" or "first order"; ``contributors`` lists (input, share of variance) from the
     largest down (MC: squared correlation of each input with the set point); ``sensitivities`` dT/dp per
@@ -66,12 +66,6 @@ class SetPointScatter:
     """
 
     method: str
-    nominal: float
-    mean: float
-    std: float
-    percentiles: Mapping[float, float]
-    contributors: tuple[tuple[str, float], ...]
-    sensitivities: Mapping[str, float]
     samples: int
     failed: int
     seconds: float
@@ -85,12 +79,7 @@ class SetPointScatter:
     def to_dict(self) -> dict:
         return {
             "method": self.method,
-            "nominal": self.nominal,
-            "mean": self.mean,
-            "std": self.std,
-            "percentiles": {f"{k:g}": v for k, v in self.percentiles.items()},
-            "contributors": [[name, share] for name, share in self.contributors],
-            "sensitivities": dict(self.sensitivities),
+            **self.summary_dict(),
             "samples": self.samples,
             "failed": self.failed,
             "seconds": self.seconds,
@@ -243,9 +232,9 @@ def monte_carlo_set_point(
     if failed:
         warnings += (f"{failed} samples gave no finite set point and were left out",)
     return SetPointScatter(
-        "monte carlo", nominal, mean, std, pct, shares, {}, run.samples, failed,
-        time.perf_counter() - start_time, tolerances, element.strip.source, warnings, _ASSUMPTIONS,
-        values=out if keep_values else None,
+        nominal, mean, std, pct, shares, {}, method="monte carlo", samples=run.samples, failed=failed,
+        seconds=time.perf_counter() - start_time, tolerances=tolerances, curvature_source=element.strip.source,
+        warnings=warnings, assumptions=_ASSUMPTIONS, values=out if keep_values else None,
     )
 
 
@@ -317,7 +306,8 @@ def first_order_set_point(
     std, ranked = first_order(sens, tolerances)
     pct = normal_percentiles(T_set, std)
     return SetPointScatter(
-        "first order", T_set, T_set, std, pct, ranked, sens, 0, 0, time.perf_counter() - start_time,
-        tolerances, strip.source, problem.set_point.warnings,
-        _ASSUMPTIONS + ("linearised about the nominal set point; percentiles from a normal distribution",),
+        T_set, T_set, std, pct, ranked, sens, method="first order", samples=0, failed=0,
+        seconds=time.perf_counter() - start_time, tolerances=tolerances, curvature_source=strip.source,
+        warnings=problem.set_point.warnings,
+        assumptions=_ASSUMPTIONS + ("linearised about the nominal set point; percentiles from a normal distribution",),
     )
