@@ -140,3 +140,17 @@ def test_bad_tolerances_name_the_input():
         solder.joint_scatter(result, 6.5e-6, 16e-6, {"cycle_low": scatter.Tolerance(0.01)})
     with pytest.raises(InputError, match="method"):
         solder.joint_scatter(result, 6.5e-6, 16e-6, {"dnp": scatter.Tolerance(0.01)}, method="exact")
+
+
+def test_report_says_when_first_order_is_not_accurate():
+    """Delta method limit: dgamma ~ 1/h, so a +/-60 % (3 sigma) stand-off tolerance makes the strain's
+    scatter skewed and wider than the linearisation; the report says the Monte Carlo holds."""
+    from bilayer.solder.report import report
+
+    wide = DESIGN.replace("tolerance_standoff = 0.03", "tolerance_standoff = 0.6").replace("samples = 200000",
+                                                                                           "samples = 50000")
+    design = read_design_text(wide).design
+    assessment = solder.assess_solder_design(design)
+    first, mc = assessment.scatter
+    assert mc["shear strain"].std > 1.1 * first["shear strain"].std
+    assert "too wide for the linearisation" in report(design, assessment)

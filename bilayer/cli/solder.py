@@ -7,11 +7,14 @@ import argparse
 from .job_output import add_file_arguments, run_assessment
 
 NAME = "solder"
-HELP = "screen the solder joint of a design file: DNP strain, Engelmaier life, acceleration, warpage"
+HELP = "screen the solder joint of a design file: strain, life by the alloy's law, chamber life, scatter, warpage"
 DESCRIPTION = (
-    "Run the [solder_joint] section of a design file: global (DNP) and local mismatch strains, the "
-    "Engelmaier median life with its Weibull spread, the Norris-Landzberg acceleration factor against "
-    "a test cycle, and the warpage of the assembly from the stack engine. Screening estimates only."
+    "Run the [solder_joint] section of a design file: global (DNP) strain by joint type (leadless, area "
+    "array, leaded) and local mismatch; the median life by the life law the solder's alloy family selects "
+    "(or the user's Coffin-Manson or energy law; a law of another family only when accepted, with a warning) "
+    "and its Weibull spread; the Norris-Landzberg factor and the one chamber life with its cross-check; "
+    "scatter from tolerances (first order and Monte Carlo); the warpage at the cycle extremes. Warnings are "
+    "printed first. Screening estimates only."
 )
 
 

@@ -212,7 +212,7 @@ def monte_carlo(evaluate: Callable[[dict, int], Mapping[str, np.ndarray]], toler
 def contributors_text(what: str, contributors: Sequence[tuple[str, float]], labels: Mapping[str, str],
                       negligible: float = 0.01) -> str:
     """One plain sentence naming what drives the scatter of ``what``, largest first, with its share of the
-    variance; inputs under ``negligible`` of it are summed as "the rest"."""
+    variance; inputs under ``negligible`` of it are summed as "the others" (named from 0.5 %)."""
     named = [(labels.get(key, key), share) for key, share in contributors if share >= negligible]
     rest = sum(share for _, share in contributors if share < negligible)
     if not named:
@@ -224,7 +224,7 @@ def contributors_text(what: str, contributors: Sequence[tuple[str, float]], labe
         text = f"The scatter of the {what} comes mostly from {words[0]}, then " + _listing(words[1:])
     else:
         text = f"The scatter of the {what} comes from " + _listing(words)
-    if rest > 0:
+    if rest >= 0.005:
         text += f"; the others add {100 * rest:.1g} %"
     return text + " of its variance."
 

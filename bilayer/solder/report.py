@@ -115,6 +115,7 @@ def report(design, assessment, system: str = "si", source: str = "") -> str:
                          f"{format_quantity(kappa[i], 'curvature', system):>14}  "
                          + "  ".join(f"{format_quantity(b[i], 'length', system):>12}" for b in bows))
 
+    first_order = next((s for s in assessment.scatter if s.method == "first order"), None)
     for scatter in assessment.scatter:
         how = "first order" if scatter.method == "first order" else f"Monte Carlo, {scatter.samples} samples"
         tolerances = ", ".join(
@@ -134,5 +135,10 @@ def report(design, assessment, system: str = "si", source: str = "") -> str:
             lines.append(f"  {item.name}: nominal {show(item.nominal)}, mean {show(item.mean)}, std {show(item.std)}, "
                          f"0.135 to 99.865 % {show(low)} to {show(high)}")
             lines.append(f"    {item.text}")
+            if first_order is not None and scatter is not first_order and first_order[item.name].std > 0:
+                change = item.std / first_order[item.name].std - 1.0
+                if abs(change) > 0.1:
+                    lines.append(f"    first order is {100 * -change:+.0f} % off this standard deviation: the tolerances "
+                                 "are too wide for the linearisation, the Monte Carlo figures hold")
     lines += ["", "Assumptions:"] + [f"  - {text}" for text in j.assumptions]
     return "\n".join(lines)
