@@ -677,3 +677,16 @@ def test_command_line_prints_convention_and_cautions(capsys):
     data = json.loads(capsys.readouterr().out)
     assert data["solder_joint"]["acceleration_convention"] == solder.NORRIS_LANDZBERG_CONVENTION
     assert len(data["warpage"]["curvature"]) == 4
+
+
+def test_files_saved_before_the_life_laws_still_read():
+    """Earlier versions wrote ``ductility = 0.325`` (Engelmaier's eps_f', then a default) into every saved
+    table; it is taken as that default. Another value with Engelmaier's law is refused: a changed eps_f'
+    with the Sn-Pb exponent is not a published law (use coffin_manson with the alloy's constants)."""
+    from bilayer.core.errors import DesignFileError
+    from bilayer.designs.design_file import read_design_text
+
+    text = EXAMPLE.read_text().replace("early_fraction = 0.01", "early_fraction = 0.01\nductility = 0.325")
+    assert "ductility" not in read_design_text(text).design.sections["solder_joint"]
+    with pytest.raises(DesignFileError, match="ductility"):
+        read_design_text(text.replace("ductility = 0.325", "ductility = 0.4"))

@@ -28,7 +28,8 @@ import numpy as np
 from ..core.cautions import CAUTIONS
 from ..core.errors import InputError, check_range, warn_suspicious
 from ..core.units import from_si, to_si
-from .acceleration import NORRIS_LANDZBERG_CONVENTION, NorrisLandzbergSet, ChamberLife, chamber_life, norris_landzberg_factor
+from .acceleration import (NORRIS_LANDZBERG_CONVENTION, NORRIS_LANDZBERG_SETS, ChamberLife, NorrisLandzbergSet,
+                           chamber_life, norris_landzberg_factor)
 from .acceleration import acceleration_set as named_acceleration_set
 from .alloys import OTHER_LEAD_FREE, TIN_SILVER_COPPER, AlloyFamily, alloy_family, family_check
 from .cautions import SOLDER_CAUTIONS
@@ -183,8 +184,6 @@ def default_life_law(family: AlloyFamily) -> "CoffinManson | EnergyLaw":
 
 def default_acceleration_set(family: AlloyFamily) -> NorrisLandzbergSet:
     """The acceleration set for the joint's alloy family (see the module)."""
-    from .acceleration import NORRIS_LANDZBERG_SETS
-
     if family.key == TIN_SILVER_COPPER:
         return NORRIS_LANDZBERG_SETS["sac305_2012"]
     if family.key == OTHER_LEAD_FREE:
