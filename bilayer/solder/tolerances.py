@@ -30,6 +30,7 @@ import numpy as np
 
 from ..core.errors import InputError
 from ..core.progress import Progress
+from ..core.units import from_si
 from ..core.scatter import (ScatterSummary, Tolerance, contributors_text, first_order, monte_carlo, normal_percentiles,
                             numeric_sensitivities, summary)
 from .acceleration import acceleration_factors
@@ -142,7 +143,7 @@ class _Model:
             self.chamber_by_law = chamber.cross_check is not None
         if warpage is not None:
             labels = warpage.result.temperature_labels or tuple(
-                f"{t - 273.15:.6g} degC" for t in warpage.result.temperatures)
+                f"{from_si(t, 'temperature', 'degC'):.6g} degC" for t in warpage.result.temperatures)
             self.warpage_labels = labels
             self.names += [f"bow over the diagonal at {label}" for label in labels]
 
